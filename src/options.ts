@@ -1,0 +1,97 @@
+/**
+ * The one options module: every option, its meaning, unit and default, in one
+ * frozen table. The CLI maps flags onto this object and adds no defaults of its
+ * own; the library takes the same object.
+ */
+
+export interface Options {
+  /** Largest allowed distance between the original and the refitted geometry, in mm on the machine. */
+  tolerance: number;
+  /** A vertex where the outline turns by more than this many degrees stays a sharp corner. */
+  cornerAngle: number;
+  /** Write circular arcs in root coordinates with element transforms removed (for arc-capable controllers). */
+  bakeTransforms: boolean;
+  /** Also rewrite circle, ellipse and rect elements, which are exact already, as paths. */
+  shapesAsPaths: boolean;
+  /** Millimetres per user unit for a file that states no physical size (CSS px: 25.4/96). */
+  assumedMmPerUnit: number;
+  /** Decimal places for written coordinates; null derives them from the tolerance. */
+  digits: number | null;
+}
+
+export interface OptionDoc {
+  meaning: string;
+  unit: string;
+}
+
+export const DEFAULT_OPTIONS: Readonly<Options> = Object.freeze({
+  tolerance: 0.1,
+  cornerAngle: 30,
+  bakeTransforms: false,
+  shapesAsPaths: false,
+  assumedMmPerUnit: 25.4 / 96,
+  digits: null,
+});
+
+export const OPTION_DOCS: Readonly<Record<keyof Options, OptionDoc>> = Object.freeze({
+  tolerance: { meaning: 'largest allowed deviation from the original geometry', unit: 'mm' },
+  cornerAngle: { meaning: 'turns sharper than this stay sharp corners', unit: 'degrees' },
+  bakeTransforms: { meaning: 'write circular arcs in root coordinates, element transforms removed', unit: 'flag' },
+  shapesAsPaths: { meaning: 'rewrite exact circle/ellipse/rect elements as paths too', unit: 'flag' },
+  assumedMmPerUnit: { meaning: 'size of one user unit when the file states no physical size', unit: 'mm' },
+  digits: { meaning: 'decimal places written (default: derived from the tolerance)', unit: 'count' },
+});
+
+/** Error for an option value a user gave; its message names the option and the bad value. */
+export class OptionError extends Error {
+  override name = 'OptionError';
+}
+
+/** Fill in defaults (with ??, so 0 and false pass) and validate. */
+export function resolveOptions(partial: Partial<Options> = {}): Options {
+  const o: Options = {
+    tolerance: partial.tolerance ?? DEFAULT_OPTIONS.tolerance,
+    cornerAngle: partial.cornerAngle ?? DEFAULT_OPTIONS.cornerAngle,
+    bakeTransforms: partial.bakeTransforms ?? DEFAULT_OPTIONS.bakeTransforms,
+    shapesAsPaths: partial.shapesAsPaths ?? DEFAULT_OPTIONS.shapesAsPaths,
+    assumedMmPerUnit: partial.assumedMmPerUnit ?? DEFAULT_OPTIONS.assumedMmPerUnit,
+    digits: partial.digits === undefined ? DEFAULT_OPTIONS.digits : partial.digits,
+  };
+  if (!(o.tolerance > 0) || !Number.isFinite(o.tolerance)) {
+    throw new OptionError(`tolerance must be a positive number of mm, got ${String(partial.tolerance)}`);
+  }
+  if (!(o.cornerAngle >= 0 && o.cornerAngle <= 180)) {
+    throw new OptionError(`cornerAngle must be between 0 and 180 degrees, got ${String(partial.cornerAngle)}`);
+  }
+  if (!(o.assumedMmPerUnit > 0) || !Number.isFinite(o.assumedMmPerUnit)) {
+    throw new OptionError(`assumedMmPerUnit must be a positive number, got ${String(partial.assumedMmPerUnit)}`);
+  }
+  if (o.digits !== null && !(Number.isInteger(o.digits) && o.digits >= 0 && o.digits <= 12)) {
+    throw new OptionError(`digits must be a whole number from 0 to 12, got ${String(partial.digits)}`);
+  }
+  return o;
+}
+
+const LENGTH_TO_MM: Readonly<Record<string, number>> = Object.freeze({
+  // CSS Values 3 §5.2 absolute lengths: 1in = 2.54cm = 96px.
+  mm: 1,
+  cm: 10,
+  in: 25.4,
+  pt: 25.4 / 72,
+  pc: 25.4 / 6,
+  px: 25.4 / 96,
+  q: 0.25,
+});
+
+/** Parse a tolerance such as "0.05mm", "0.002in", "0.5px" or a bare number (mm). */
+export function parseToleranceText(text: string): number {
+  const m = /^\s*([+]?(?:\d+\.?\d*|\.\d+)(?:e[+-]?\d+)?)\s*([a-z]*)\s*$/i.exec(text);
+  const unit = m ? (m[2] || 'mm').toLowerCase() : '';
+  const k = LENGTH_TO_MM[unit];
+  if (!m || k === undefined) {
+    throw new OptionError(`tolerance "${text}" is not a length; use e.g. 0.05mm, 0.002in, 0.2px or a bare number in mm`);
+  }
+  const v = Number(m[1]) * k;
+  if (!(v > 0) || !Number.isFinite(v)) throw new OptionError(`tolerance must be positive, got "${text}"`);
+  return v;
+}
