@@ -86,6 +86,9 @@ export function buildSegmentIndex(polylines: Float64Array[]): SegmentIndex | nul
   return { tree, segs };
 }
 
+/** Extra margin of a candidate query, in units of the needed radius, so that following segments can reuse it. */
+const MARGIN = 1;
+
 /** Deepest bisection (2^-48 of a segment is far below double noise for our sizes). */
 const MAX_DEPTH = 48;
 
@@ -138,6 +141,8 @@ export function directedDistance(
     return best;
   };
 
+  // The box last queried (its candidates are in `cand`).
+  let qx0 = Infinity, qy0 = Infinity, qx1 = -Infinity, qy1 = -Infinity;
   let max = -Infinity, worstX = NaN, worstY = NaN, sum = 0, samples = 0;
 
   // Bound the distance on the interval x0→x1 (length len, end distances d0/d1 over the candidates).
@@ -173,6 +178,7 @@ export function directedDistance(
     const closedRepeat = n > 1 && pl[2 * n - 2] === px && pl[2 * n - 1] === py;
     if (n === 1) {
       m = 0;
+      qx0 = Infinity; // the single-point query below replaces the cached candidates
       const r = fp * (1 + 1e-12) + 1e-12;
       tree.search(px - r, py - r, px + r, py + r, collect);
       fp = distances(row(0), px, py);
@@ -186,10 +192,24 @@ export function directedDistance(
       const len = Math.hypot(qx - px, qy - py);
       // Every point x of this segment has f(x) ≤ f(p) + len, so its nearest segment of b lies in this box.
       const r = (fp + len) * (1 + 1e-12) + 1e-12;
-      m = 0;
-      tree.search(Math.min(px, qx) - r, Math.min(py, qy) - r, Math.max(px, qx) + r, Math.max(py, qy) + r, collect);
-      const d0 = row(0), d1 = row(1);
-      fp = distances(d0, px, py);
+      const x0 = Math.min(px, qx) - r, y0 = Math.min(py, qy) - r, x1 = Math.max(px, qx) + r, y1 = Math.max(py, qy) + r;
+      // Reuse the last query while the needed box lies inside it; otherwise query a box with a margin
+      // of r so that the next few segments can reuse it too (fewer tree walks, a few more candidates).
+      let d0 = row(0), d1 = row(1);
+      if (x0 < qx0 || y0 < qy0 || x1 > qx1 || y1 > qy1) {
+        qx0 = x0 - r * MARGIN; qy0 = y0 - r * MARGIN; qx1 = x1 + r * MARGIN; qy1 = y1 + r * MARGIN;
+        m = 0;
+        tree.search(qx0, qy0, qx1, qy1, collect);
+        d0 = row(0);
+        d1 = row(1);
+        fp = distances(d0, px, py);
+      } else if (i > 1) {
+        // Same candidates as the previous segment: its end distances are this one's start distances.
+        rows[0] = d1;
+        rows[1] = d0;
+        d0 = rows[0];
+        d1 = rows[1];
+      } else fp = distances(d0, px, py);
       const fq = distances(d1, qx, qy);
       if (i === 1) { sum += fp; samples++; }
       if (i < n - 1 || !closedRepeat) { sum += fq; samples++; }
