@@ -107,3 +107,13 @@ export function sandwich(out: Point, m: Motor, x: Point): Point {
   out[2] = (ss + rr) * w;
   return out;
 }
+
+/** Meet (outer product) L1 ∧ L2 of two lines: their intersection point (ideal when parallel). */
+export function meet(out: Point, l1: Line, l2: Line): Point {
+  const c1 = l1[0], a1 = l1[1], b1 = l1[2];
+  const c2 = l2[0], a2 = l2[1], b2 = l2[2];
+  out[0] = c1 * a2 - a1 * c2;
+  out[1] = c1 * b2 - b1 * c2;
+  out[2] = a1 * b2 - b1 * a2;
+  return out;
+}

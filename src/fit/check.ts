@@ -1,0 +1,75 @@
+/**
+ * Does one candidate piece stay inside the tolerance band of the vertices it
+ * stands for? Scalar arguments, no allocation: this is the fitter's inner loop.
+ *
+ * A piece passes when every vertex k in [a, b] lies within `tol` of the piece
+ * (and, for an arc, inside its angular sector or within `tol` of an end), and no
+ * edge between them dips further than `tol` inside the circle. Since the vertex
+ * path then runs continuously through the sector from one end to the other, every
+ * point of the piece is within `tol` of the path too (two-sided).
+ */
+
+const TWO_PI = 2 * Math.PI;
+
+/** Distance from (px, py) to the segment (ax, ay)–(bx, by). */
+export function distPointSegment(px: number, py: number, ax: number, ay: number, bx: number, by: number): number {
+  const dx = bx - ax, dy = by - ay;
+  const l2 = dx * dx + dy * dy;
+  let t = l2 > 0 ? ((px - ax) * dx + (py - ay) * dy) / l2 : 0;
+  if (t < 0) t = 0;
+  else if (t > 1) t = 1;
+  const ex = ax + t * dx - px, ey = ay + t * dy - py;
+  return Math.sqrt(ex * ex + ey * ey);
+}
+
+/** Line piece (qx, qy)–(ex, ey) against vertices a..b of pts. */
+export function lineFits(pts: Float64Array, a: number, b: number, qx: number, qy: number, ex: number, ey: number, tol: number): boolean {
+  for (let k = a; k <= b; k++) {
+    if (distPointSegment(pts[2 * k], pts[2 * k + 1], qx, qy, ex, ey) > tol) return false;
+  }
+  return true;
+}
+
+/**
+ * Arc piece about (cx, cy) with radius r from (qx, qy) sweeping `sweep` radians
+ * (positive from +x towards +y) to (ex, ey), against vertices a..b of pts.
+ */
+export function arcFits(
+  pts: Float64Array, a: number, b: number,
+  cx: number, cy: number, r: number, sweep: number,
+  qx: number, qy: number, ex: number, ey: number, tol: number,
+): boolean {
+  const ux = qx - cx, uy = qy - cy;
+  const sgn = sweep < 0 ? -1 : 1;
+  const span = Math.abs(sweep);
+  const inner = r - tol;
+  let prevX = 0, prevY = 0;
+  for (let k = a; k <= b; k++) {
+    const px = pts[2 * k], py = pts[2 * k + 1];
+    const wx = px - cx, wy = py - cy;
+    const d = Math.sqrt(wx * wx + wy * wy);
+    if (Math.abs(d - r) > tol) return false;
+    let th = sgn * Math.atan2(ux * wy - uy * wx, ux * wx + uy * wy);
+    if (th < 0) th += TWO_PI;
+    if (th > span) {
+      // Outside the sector: acceptable only near an end of the arc.
+      const dq = Math.hypot(px - qx, py - qy), de = Math.hypot(px - ex, py - ey);
+      if (dq > tol && de > tol) return false;
+    }
+    if (k > a && inner > 0) {
+      // The edge's closest approach to the centre must not dip below r − tol.
+      const dx = px - prevX, dy = py - prevY;
+      const l2 = dx * dx + dy * dy;
+      if (l2 > 0) {
+        const t = ((cx - prevX) * dx + (cy - prevY) * dy) / l2;
+        if (t > 0 && t < 1) {
+          const fx = prevX + t * dx - cx, fy = prevY + t * dy - cy;
+          if (fx * fx + fy * fy < inner * inner) return false;
+        }
+      }
+    }
+    prevX = px;
+    prevY = py;
+  }
+  return true;
+}

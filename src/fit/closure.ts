@@ -1,0 +1,54 @@
+/**
+ * Closing a smooth closed contour: the last stretch must arrive at the seam with
+ * the seam's start tangent. A biarc does that (Bolton, "Biarc curves", CAD 7(2),
+ * 1975): two arcs meeting tangentially at a junction J chosen here with equal
+ * tangent lengths. Both halves are rotor arcs (./piece.ts): the first continues
+ * the spline into J, the second continues the first into the seam.
+ */
+import { makePiece, type Piece } from './piece.js';
+
+/** Largest sine of the angle between two tangents that still counts as the same tangent. */
+export const TANGENT_EPS = 1e-7;
+
+/**
+ * Biarc from knot (qx, qy) with tangent (tx, ty) and motor bivector (bp, bq, br),
+ * standing for vertices a..last, to pts[last] arriving with tangent (t0x, t0y).
+ */
+export function biarcClosure(
+  pts: Float64Array, a: number, last: number,
+  bp: number, bq: number, br: number,
+  qx: number, qy: number, tx: number, ty: number,
+  t0x: number, t0y: number, tol: number,
+): [Piece, Piece] | null {
+  const ex = pts[2 * last], ey = pts[2 * last + 1];
+  const vx = ex - qx, vy = ey - qy;
+  const sx = tx + t0x, sy = ty + t0y;
+  const tt = sx * sx + sy * sy, vt = vx * sx + vy * sy, vv = vx * vx + vy * vy;
+  if (!(vv > 0)) return null;
+  // Equal tangent lengths d: |v − d(t_a + t_0)| = 2d.
+  let d: number;
+  if (Math.abs(tt - 4) < 1e-12) {
+    if (!(vt > 0)) return null;
+    d = vv / (2 * vt);
+  } else {
+    const disc = vt * vt - (tt - 4) * vv;
+    d = (vt - Math.sqrt(Math.max(0, disc))) / (tt - 4);
+  }
+  if (!(d > 0) || !Number.isFinite(d)) return null;
+  const jx = 0.5 * (qx + d * tx + ex - d * t0x), jy = 0.5 * (qy + d * ty + ey - d * t0y);
+  // Split the vertex range at the vertex nearest the junction.
+  let split = a, best = Infinity;
+  for (let k = a; k <= last; k++) {
+    const dd = (pts[2 * k] - jx) ** 2 + (pts[2 * k + 1] - jy) ** 2;
+    if (dd < best) {
+      best = dd;
+      split = k;
+    }
+  }
+  const first = makePiece(pts, a, split, bp, bq, br, qx, qy, jx, jy, tol);
+  if (!first) return null;
+  const second = makePiece(pts, split, last, first.m[1], first.m[2], first.m[3], jx, jy, ex, ey, tol);
+  if (!second) return null;
+  if (second.tx * t0x + second.ty * t0y <= 0 || Math.abs(second.tx * t0y - second.ty * t0x) > 1e-6) return null;
+  return [first, second];
+}

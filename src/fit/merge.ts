@@ -1,0 +1,68 @@
+/**
+ * Clean-ups after the search: neighbours on one circle (or one line) become one
+ * piece, and arcs of absurd radius become lines where the line also fits.
+ */
+import { makePiece, pieceStartTangent, type Piece } from './piece.js';
+import { lineFits } from './check.js';
+import { TANGENT_EPS } from './closure.js';
+
+/** Replace neighbouring pieces by one where one rotor piece covers both and keeps the tangent after them. */
+export function mergeNeighbours(pts: Float64Array, pieces: Piece[], tol: number): Piece[] {
+  if (pieces.length < 2) return pieces;
+  const out = pieces.slice();
+  const [t0x, t0y] = pieceStartTangent(out[0]);
+  let i = 0;
+  while (i + 1 < out.length) {
+    const A = out[i], B = out[i + 1];
+    if (A.kind === B.kind) {
+      let bp: number, bq: number, br: number;
+      if (i === 0) {
+        bp = -t0x;
+        bq = -t0y;
+        br = 0;
+      } else {
+        const m = out[i - 1].m;
+        bp = m[1];
+        bq = m[2];
+        br = m[3];
+      }
+      const full = Math.hypot(B.x1 - A.x0, B.y1 - A.y0) <= 1e-9 * tol;
+      const c = full ? null : makePiece(pts, A.a, B.b, bp, bq, br, A.x0, A.y0, B.x1, B.y1, tol);
+      if (c && c.kind === A.kind && c.tx * B.tx + c.ty * B.ty > 0 && Math.abs(c.tx * B.ty - c.ty * B.tx) <= TANGENT_EPS) {
+        out.splice(i, 2, c);
+        continue;
+      }
+    }
+    i++;
+  }
+  return out;
+}
+
+/** True when two pieces lie on one circle (or one line) with the same orientation. */
+export function sameCarrier(A: Piece, B: Piece, tol: number): boolean {
+  if (A.kind !== B.kind) return false;
+  const eps = 1e-6 * tol;
+  if (A.kind === 'line') {
+    const [ax, ay] = pieceStartTangent(A), [bx, by] = pieceStartTangent(B);
+    if (ax * bx + ay * by <= 0 || Math.abs(ax * by - ay * bx) > TANGENT_EPS) return false;
+    return Math.abs((B.x0 - A.x0) * ay - (B.y0 - A.y0) * ax) <= eps;
+  }
+  const ra = A.m[3], rb = B.m[3];
+  const acx = -A.m[2] / ra, acy = A.m[1] / ra, bcx = -B.m[2] / rb, bcy = B.m[1] / rb;
+  const rA = Math.hypot(A.x0 - acx, A.y0 - acy), rB = Math.hypot(B.x0 - bcx, B.y0 - bcy);
+  const sa = -2 * Math.atan2(ra, A.m[0]), sb = -2 * Math.atan2(rb, B.m[0]);
+  return sa * sb > 0 && Math.hypot(acx - bcx, acy - bcy) <= eps && Math.abs(rA - rB) <= eps;
+}
+
+/** Arcs with a radius beyond `maxRadius` become their chord where the chord fits. */
+export function straightenFlatArcs(pts: Float64Array, pieces: Piece[], maxRadius: number, tol: number): Piece[] {
+  return pieces.map((p) => {
+    if (p.kind !== 'arc') return p;
+    const r = p.m[3];
+    const rad = Math.hypot(p.x0 + p.m[2] / r, p.y0 - p.m[1] / r);
+    if (rad <= maxRadius || !lineFits(pts, p.a, p.b, p.x0, p.y0, p.x1, p.y1, tol)) return p;
+    const dx = p.x1 - p.x0, dy = p.y1 - p.y0, l = Math.hypot(dx, dy);
+    const m = new Float64Array([1, -0.5 * dx, -0.5 * dy, 0]);
+    return { ...p, kind: 'line', m, tx: dx / l, ty: dy / l };
+  });
+}
