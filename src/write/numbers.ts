@@ -18,6 +18,20 @@ function checkDigits(digits: number): void {
 }
 
 /**
+ * toFixed switches to exponent form at 1e21 (every double that large is an
+ * integer): expand the shortest round-trip digits of `String(v)` ("2.5e+22")
+ * with zeros instead, so the value reads back as the same double.
+ */
+function expandLarge(v: number): string {
+  const [mant, exp] = String(v).split('e');
+  const neg = mant.charCodeAt(0) === 45;
+  const [int, frac = ''] = (neg ? mant.slice(1) : mant).split('.');
+  const digits = int + frac;
+  const zeros = Number(exp) - frac.length;
+  return (neg ? '-' : '') + digits + '0'.repeat(Math.max(0, zeros));
+}
+
+/**
  * Shortest text of `v` rounded to `digits` decimal places.
  *
  * @param v any finite number (user units, degrees, …)
@@ -27,8 +41,7 @@ function checkDigits(digits: number): void {
 export function formatNumber(v: number, digits: number): string {
   if (!Number.isFinite(v)) throw new RangeError(`cannot write a non-finite number: ${v}`);
   checkDigits(digits);
-  // toFixed switches to exponent form at 1e21; every double that large is an integer.
-  let s = Math.abs(v) >= 1e21 ? BigInt(v).toString() : v.toFixed(digits);
+  let s = Math.abs(v) >= 1e21 ? expandLarge(v) : v.toFixed(digits);
   if (s.indexOf('.') >= 0) {
     let end = s.length;
     while (s.charCodeAt(end - 1) === 48) end--; // '0'
