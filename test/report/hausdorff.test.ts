@@ -115,7 +115,8 @@ describe('directedDistance', () => {
     const ms = performance.now() - t0;
     console.log(`directedDistance 1e6 → 5e5 points: ${ms.toFixed(0)} ms (checksum ${d.max.toFixed(6)})`);
     expect(d.max).toBeCloseTo(0.01, 4);
-    // ~0.9 s measured on an idle 2-core box; generous because the test machines are shared
-    expect(ms).toBeLessThan(10000);
+    // ~0.9 s on an idle 2-core box. The limit guards against a quadratic blow-up (which would take
+    // minutes), not a benchmark: the machines running tests are shared and loaded.
+    expect(ms).toBeLessThan(20000);
   });
 });
