@@ -1,0 +1,339 @@
+/**
+ * Flatten parsed path data through a matrix into contours (polylines in mm)
+ * with a proven maximum deviation.
+ *
+ * Guarantee: for every segment, every point of the true curve after the
+ * matrix is within `maxError` of the polyline piece that stands for it, and
+ * every polyline point is within `maxError` of the curve (each bound pairs
+ * points at the same parameter, so it holds both ways).
+ * - Lines are copied as vertices (error 0).
+ * - Cubic / quadratic Béziers: control points mapped first (affine maps
+ *   commute with Bézier evaluation), then n uniform steps from the
+ *   second-difference bound in ./bezier.ts.
+ * - Elliptical arcs: centre form in user units (./arcCenter.ts, with the
+ *   F.6.2 / F.6.6 rules), mapped as P(θ) = M·c + E·(cosθ, sinθ) with
+ *   E = L·R(φ)·diag(rx, ry) (REFERENCES.md §5.2). A chord spanning parameter
+ *   δ deviates by at most σ1·(1 − cos(δ/2)): on the pre-image unit circle an
+ *   arc point and the chord point with the same tangential coordinate differ
+ *   by (1 − cos(δ/2)) along one direction, which E stretches by at most σ1
+ *   (the sagitta, REFERENCES.md §6, on the largest semi-axis). Valid for δ ≤ π;
+ *   we also cap δ at π/2.
+ *
+ * Topology: consecutive exactly equal vertices are dropped; OP_Z closes the
+ * contour (the first vertex is not repeated); a subpath with fewer than two
+ * distinct vertices yields nothing (an M alone, or only zero-length pieces).
+ * `corners` lists the joins of two source segments whose tangents differ by
+ * more than 1°, unless both are straight (line–line joins are the fitter's to
+ * judge); the start and end of an open contour are never listed.
+ */
+import type { PathData } from '../svg/pathTypes.js';
+import { OP_A, OP_C, OP_L, OP_M, OP_Q, OP_Z } from '../svg/pathTypes.js';
+import type { Matrix } from '../svg/matrixTypes.js';
+import type { Contour } from './contour.js';
+import { ARC_CENTER_LENGTH, ARC_ELLIPSE, ARC_LINE, ARC_OMITTED, arcToCenterInto } from './arcCenter.js';
+import { cubicFlatness, quadFlatness, stepsForFlatness, MAX_CURVE_STEPS } from './bezier.js';
+import { maxSemiAxis } from './ellipseImage.js';
+
+/** Optional record of what flattening proved, filled by {@link flattenPath}. */
+export interface FlattenStats {
+  /** Per returned contour (same order), the largest deviation bound of any of its pieces, mm (0 for straight lines only). */
+  bounds: number[];
+}
+
+/** Joins whose tangents turn by more than this are listed in `corners`. */
+export const CORNER_DEG = 1;
+const COS_CORNER = Math.cos((CORNER_DEG * Math.PI) / 180);
+/** Largest parameter step on an arc, radians (at least 4 chords per full turn). */
+const MAX_ARC_STEP = Math.PI / 2;
+
+const NONE = 0, STRAIGHT = 1, CURVED = 2;
+
+// Growing scratch buffers shared by all calls (single-threaded); each contour
+// is copied out with slice().
+let xy = new Float64Array(4096);
+let len = 0; // doubles used in xy
+let cornerBuf = new Uint32Array(256);
+let nCorners = 0;
+// Join state of the contour being built.
+let prevKind = NONE, ptx = 0, pty = 0; // end tangent of the last non-degenerate piece
+let firstKind = NONE, ftx = 0, fty = 0; // start tangent of the first piece
+let bound = 0;
+const arc = new Float64Array(ARC_CENTER_LENGTH);
+
+function push(x: number, y: number): void {
+  if (len > 0 && xy[len - 2] === x && xy[len - 1] === y) return;
+  if (len + 2 > xy.length) {
+    const next = new Float64Array(xy.length * 2);
+    next.set(xy);
+    xy = next;
+  }
+  xy[len] = x;
+  xy[len + 1] = y;
+  len += 2;
+}
+
+function markCorner(index: number): void {
+  if (nCorners === cornerBuf.length) {
+    const next = new Uint32Array(cornerBuf.length * 2);
+    next.set(cornerBuf);
+    cornerBuf = next;
+  }
+  cornerBuf[nCorners++] = index;
+}
+
+/** True when the turn from tangent a to tangent b exceeds CORNER_DEG (a zero tangent never marks). */
+function isBreak(ax: number, ay: number, bx: number, by: number): boolean {
+  return ax * bx + ay * by < COS_CORNER * Math.hypot(ax, ay) * Math.hypot(bx, by);
+}
+
+/** Record the join at the current last vertex before a piece of `kind` with start tangent (tx, ty) adds vertices. */
+function join(kind: number, tx: number, ty: number): void {
+  if (prevKind === NONE) {
+    firstKind = kind;
+    ftx = tx;
+    fty = ty;
+  } else if ((prevKind === CURVED || kind === CURVED) && isBreak(ptx, pty, tx, ty)) {
+    markCorner(len / 2 - 1);
+  }
+}
+
+function begin(x: number, y: number): void {
+  len = 0;
+  nCorners = 0;
+  prevKind = NONE;
+  firstKind = NONE;
+  bound = 0;
+  push(x, y);
+}
+
+function finish(out: Contour[], closed: boolean, stats: FlattenStats | undefined): void {
+  let corner0 = false;
+  if (closed && len >= 4) {
+    const fx = xy[0], fy = xy[1];
+    const lx = xy[len - 2], ly = xy[len - 1];
+    if (lx === fx && ly === fy) {
+      len -= 2;
+    } else {
+      // The closing line is a piece of its own: join at the last vertex.
+      const tx = fx - lx, ty = fy - ly;
+      join(STRAIGHT, tx, ty);
+      prevKind = STRAIGHT;
+      ptx = tx;
+      pty = ty;
+    }
+    corner0 = (prevKind === CURVED || firstKind === CURVED) && isBreak(ptx, pty, ftx, fty);
+  }
+  if (len >= 4) {
+    const corners = new Uint32Array(nCorners + (corner0 ? 1 : 0));
+    // Vertex 0 comes first to keep the list ascending.
+    if (corner0) corners[0] = 0;
+    corners.set(cornerBuf.subarray(0, nCorners), corner0 ? 1 : 0);
+    out.push({ xy: xy.slice(0, len), closed, corners });
+    if (stats) stats.bounds.push(bound);
+  }
+  len = 0;
+}
+
+/**
+ * Flatten path data into contours in millimetres with a proven deviation bound.
+ *
+ * @param p parsed path data (absolute, user units; see ../svg/pathTypes.ts)
+ * @param toMm user units → mm matrix [a b c d e f] (any affine map, mirrors and singular maps included)
+ * @param maxError largest allowed distance between the mapped curve and the polyline, mm, > 0
+ * @param stats optional; receives the bound actually achieved per contour
+ * @returns one contour per subpath that has at least two distinct vertices
+ * @throws RangeError for a non-positive maxError, or a curve that would need more than MAX_CURVE_STEPS vertices
+ */
+export function flattenPath(p: PathData, toMm: Matrix, maxError: number, stats?: FlattenStats): Contour[] {
+  if (!(maxError > 0) || !Number.isFinite(maxError)) {
+    throw new RangeError(`maxError must be a positive number of mm, got ${maxError}`);
+  }
+  const ma = toMm[0], mb = toMm[1], mc = toMm[2], md = toMm[3], me = toMm[4], mf = toMm[5];
+  const ops = p.ops, args = p.args;
+  const out: Contour[] = [];
+  // Current and subpath-start points, in user units (u*) and mm (q*).
+  let ux = 0, uy = 0, sx = 0, sy = 0;
+  let qx = me, qy = mf, sqx = me, sqy = mf;
+  let k = 0;
+  begin(qx, qy);
+  for (let i = 0; i < ops.length; i++) {
+    const op = ops[i];
+    if (op === OP_L) {
+      const x = args[k], y = args[k + 1];
+      k += 2;
+      const nx = ma * x + mc * y + me, ny = mb * x + md * y + mf;
+      ux = x;
+      uy = y;
+      const tx = nx - qx, ty = ny - qy;
+      if (tx === 0 && ty === 0) continue;
+      if (prevKind === CURVED || prevKind === NONE) join(STRAIGHT, tx, ty);
+      push(nx, ny);
+      prevKind = STRAIGHT;
+      ptx = tx;
+      pty = ty;
+      qx = nx;
+      qy = ny;
+    } else if (op === OP_M) {
+      finish(out, false, stats);
+      ux = sx = args[k];
+      uy = sy = args[k + 1];
+      k += 2;
+      qx = sqx = ma * ux + mc * uy + me;
+      qy = sqy = mb * ux + md * uy + mf;
+      begin(qx, qy);
+    } else if (op === OP_C || op === OP_Q) {
+      const cubic = op === OP_C;
+      const n0 = cubic ? 6 : 4;
+      const x0 = qx, y0 = qy;
+      const x1 = ma * args[k] + mc * args[k + 1] + me, y1 = mb * args[k] + md * args[k + 1] + mf;
+      const x2 = ma * args[k + 2] + mc * args[k + 3] + me, y2 = mb * args[k + 2] + md * args[k + 3] + mf;
+      let x3 = x2, y3 = y2;
+      if (cubic) {
+        x3 = ma * args[k + 4] + mc * args[k + 5] + me;
+        y3 = mb * args[k + 4] + md * args[k + 5] + mf;
+      }
+      ux = args[k + n0 - 2];
+      uy = args[k + n0 - 1];
+      k += n0;
+      qx = x3;
+      qy = y3;
+      if (cubic) bezier3(x0, y0, x1, y1, x2, y2, x3, y3, maxError);
+      else bezier2(x0, y0, x1, y1, x2, y2, maxError);
+    } else if (op === OP_A) {
+      const x = args[k + 5], y = args[k + 6];
+      const status = arcToCenterInto(arc, ux, uy, args[k], args[k + 1], args[k + 2],
+        args[k + 3] !== 0, args[k + 4] !== 0, x, y);
+      k += 7;
+      if (status === ARC_OMITTED) continue; // omitted (F.6.2): the current point stays
+      ux = x;
+      uy = y;
+      const nx = ma * x + mc * y + me, ny = mb * x + md * y + mf;
+      const tx = nx - qx, ty = ny - qy;
+      if (status === ARC_LINE) {
+        if (tx === 0 && ty === 0) continue;
+        join(STRAIGHT, tx, ty);
+        push(nx, ny);
+        prevKind = STRAIGHT;
+        ptx = tx;
+        pty = ty;
+      } else if (status === ARC_ELLIPSE) {
+        ellipse(ma, mb, mc, md, me, mf, nx, ny, maxError);
+      }
+      qx = nx;
+      qy = ny;
+    } else if (op === OP_Z) {
+      finish(out, true, stats);
+      ux = sx;
+      uy = sy;
+      qx = sqx;
+      qy = sqy;
+      // A command after Z other than M starts a new subpath at the same point.
+      begin(qx, qy);
+    }
+  }
+  finish(out, false, stats);
+  return out;
+}
+
+/** Append a cubic's vertices after the current last vertex (x0, y0), control points in mm. */
+function bezier3(
+  x0: number, y0: number, x1: number, y1: number,
+  x2: number, y2: number, x3: number, y3: number, maxError: number,
+): void {
+  if (x0 === x1 && x1 === x2 && x2 === x3 && y0 === y1 && y1 === y2 && y2 === y3) return;
+  const flat = cubicFlatness(x0, y0, x1, y1, x2, y2, x3, y3);
+  const n = stepsForFlatness(flat, maxError);
+  const kind = flat > 0 ? CURVED : STRAIGHT;
+  // End tangents, falling back along the control polygon when handles vanish.
+  let sx = x1 - x0, sy = y1 - y0;
+  if (sx === 0 && sy === 0) { sx = x2 - x0; sy = y2 - y0; }
+  if (sx === 0 && sy === 0) { sx = x3 - x0; sy = y3 - y0; }
+  let ex = x3 - x2, ey = y3 - y2;
+  if (ex === 0 && ey === 0) { ex = x3 - x1; ey = y3 - y1; }
+  if (ex === 0 && ey === 0) { ex = x3 - x0; ey = y3 - y0; }
+  join(kind, sx, sy);
+  for (let i = 1; i < n; i++) {
+    const t = i / n, s = 1 - t;
+    const b0 = s * s * s, b1 = 3 * s * s * t, b2 = 3 * s * t * t, b3 = t * t * t;
+    push(b0 * x0 + b1 * x1 + b2 * x2 + b3 * x3, b0 * y0 + b1 * y1 + b2 * y2 + b3 * y3);
+  }
+  push(x3, y3);
+  prevKind = kind;
+  ptx = ex;
+  pty = ey;
+  const e = flat / (n * n);
+  if (e > bound) bound = e;
+}
+
+/** Append a quadratic's vertices after the current last vertex (x0, y0), control points in mm. */
+function bezier2(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, maxError: number): void {
+  if (x0 === x1 && x1 === x2 && y0 === y1 && y1 === y2) return;
+  const flat = quadFlatness(x0, y0, x1, y1, x2, y2);
+  const n = stepsForFlatness(flat, maxError);
+  const kind = flat > 0 ? CURVED : STRAIGHT;
+  let sx = x1 - x0, sy = y1 - y0;
+  if (sx === 0 && sy === 0) { sx = x2 - x0; sy = y2 - y0; }
+  let ex = x2 - x1, ey = y2 - y1;
+  if (ex === 0 && ey === 0) { ex = x2 - x0; ey = y2 - y0; }
+  join(kind, sx, sy);
+  for (let i = 1; i < n; i++) {
+    const t = i / n, s = 1 - t;
+    const b0 = s * s, b1 = 2 * s * t, b2 = t * t;
+    push(b0 * x0 + b1 * x1 + b2 * x2, b0 * y0 + b1 * y1 + b2 * y2);
+  }
+  push(x2, y2);
+  prevKind = kind;
+  ptx = ex;
+  pty = ey;
+  const e = flat / (n * n);
+  if (e > bound) bound = e;
+}
+
+/**
+ * Append the vertices of the arc in `arc` (centre form, user units) mapped
+ * by the matrix, ending exactly at the mapped end point (nx, ny).
+ */
+function ellipse(
+  ma: number, mb: number, mc: number, md: number, me: number, mf: number,
+  nx: number, ny: number, maxError: number,
+): void {
+  const cx = arc[0], cy = arc[1], rx = arc[2], ry = arc[3], phi = arc[4], t1 = arc[5], dt = arc[6];
+  const cosP = Math.cos(phi), sinP = Math.sin(phi);
+  // E = L·R(φ)·diag(rx, ry): columns (ea, eb) and (ec, ed).
+  const ux = rx * cosP, uy = rx * sinP, vx = -ry * sinP, vy = ry * cosP;
+  const ea = ma * ux + mc * uy, eb = mb * ux + md * uy;
+  const ec = ma * vx + mc * vy, ed = mb * vx + md * vy;
+  const ccx = ma * cx + mc * cy + me, ccy = mb * cx + md * cy + mf;
+  const s1 = maxSemiAxis(ea, eb, ec, ed);
+  const span = Math.abs(dt);
+  // Largest step δ with σ1·(1 − cos(δ/2)) = σ1·2·sin²(δ/4) ≤ maxError (no cancellation near 0).
+  const ratio = maxError / s1;
+  let step = ratio >= 0.5 ? MAX_ARC_STEP : 4 * Math.asin(Math.sqrt(ratio / 2));
+  if (!(step <= MAX_ARC_STEP)) step = MAX_ARC_STEP;
+  let n = Math.max(1, Math.ceil(span / step));
+  let e = 0;
+  for (;;) {
+    const q = Math.sin(span / n / 4);
+    e = 2 * s1 * q * q;
+    if (e <= maxError || !(n < MAX_CURVE_STEPS)) break;
+    n++; // rounding in asin/ceil
+  }
+  if (!(n <= MAX_CURVE_STEPS)) {
+    throw new RangeError(`an arc would need ${n} steps to stay within ${maxError} (semi-axis ${s1})`);
+  }
+  const sign = dt < 0 ? -1 : 1;
+  const c0 = Math.cos(t1), s0 = Math.sin(t1);
+  join(CURVED, sign * (ec * c0 - ea * s0), sign * (ed * c0 - eb * s0));
+  for (let i = 1; i < n; i++) {
+    const t = t1 + (dt * i) / n;
+    const c = Math.cos(t), s = Math.sin(t);
+    push(ccx + ea * c + ec * s, ccy + eb * c + ed * s);
+  }
+  push(nx, ny);
+  const t2 = t1 + dt;
+  const c2 = Math.cos(t2), s2 = Math.sin(t2);
+  prevKind = CURVED;
+  ptx = sign * (ec * c2 - ea * s2);
+  pty = sign * (ed * c2 - eb * s2);
+  if (e > bound) bound = e;
+}
