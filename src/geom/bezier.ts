@@ -15,7 +15,9 @@
  *
  * - Cubic: B'' = 6·((1−t)·D0 + t·D1), D0 = P0 − 2P1 + P2, D1 = P1 − 2P2 + P3,
  *   so max|B''| ≤ 6·max(|D0|, |D1|) and the bound is (3/4)·max(|D0|, |D1|)/n².
- * - Quadratic: B'' = 2·(P0 − 2P1 + P2) is constant: bound |D|/(4n²).
+ * - Quadratic: B'' = 2·(P0 − 2P1 + P2) is constant: bound |D|/(4n²). Its
+ *   exact cubic form (P0, P0 + ⅔(P1 − P0), P2 + ⅔(P1 − P2), P2) has both
+ *   second differences equal to D/3, so the cubic bound gives the same |D|/(4n²).
  *
  * Affine maps commute with Bézier evaluation, so the control points are
  * mapped first and the bound is taken in the target space.

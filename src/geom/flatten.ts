@@ -8,8 +8,8 @@
  * points at the same parameter, so it holds both ways).
  * - Lines are copied as vertices (error 0).
  * - Cubic / quadratic Béziers: control points mapped first (affine maps
- *   commute with Bézier evaluation), then n uniform steps from the
- *   second-difference bound in ./bezier.ts.
+ *   commute with Bézier evaluation), quadratics degree-elevated to cubics,
+ *   then n uniform steps from the second-difference bound in ./bezier.ts.
  * - Elliptical arcs: centre form in user units (./arcCenter.ts, with the
  *   F.6.2 / F.6.6 rules), mapped as P(θ) = M·c + E·(cosθ, sinθ) with
  *   E = L·R(φ)·diag(rx, ry) (REFERENCES.md §5.2). A chord spanning parameter
@@ -31,7 +31,7 @@ import { OP_A, OP_C, OP_L, OP_M, OP_Q, OP_Z } from '../svg/pathTypes.js';
 import type { Matrix } from '../svg/matrixTypes.js';
 import type { Contour } from './contour.js';
 import { ARC_CENTER_LENGTH, ARC_ELLIPSE, ARC_LINE, ARC_OMITTED, arcToCenterInto } from './arcCenter.js';
-import { cubicFlatness, quadFlatness, stepsForFlatness, MAX_CURVE_STEPS } from './bezier.js';
+import { cubicFlatness, stepsForFlatness, MAX_CURVE_STEPS } from './bezier.js';
 import { maxSemiAxis } from './ellipseImage.js';
 
 /** Optional record of what flattening proved, filled by {@link flattenPath}. */
@@ -181,24 +181,28 @@ export function flattenPath(p: PathData, toMm: Matrix, maxError: number, stats?:
       qx = sqx = ma * ux + mc * uy + me;
       qy = sqy = mb * ux + md * uy + mf;
       begin(qx, qy);
-    } else if (op === OP_C || op === OP_Q) {
-      const cubic = op === OP_C;
-      const n0 = cubic ? 6 : 4;
-      const x0 = qx, y0 = qy;
+    } else if (op === OP_C) {
       const x1 = ma * args[k] + mc * args[k + 1] + me, y1 = mb * args[k] + md * args[k + 1] + mf;
       const x2 = ma * args[k + 2] + mc * args[k + 3] + me, y2 = mb * args[k + 2] + md * args[k + 3] + mf;
-      let x3 = x2, y3 = y2;
-      if (cubic) {
-        x3 = ma * args[k + 4] + mc * args[k + 5] + me;
-        y3 = mb * args[k + 4] + md * args[k + 5] + mf;
-      }
-      ux = args[k + n0 - 2];
-      uy = args[k + n0 - 1];
-      k += n0;
+      ux = args[k + 4];
+      uy = args[k + 5];
+      k += 6;
+      const x3 = ma * ux + mc * uy + me, y3 = mb * ux + md * uy + mf;
+      bezier3(qx, qy, x1, y1, x2, y2, x3, y3, maxError);
       qx = x3;
       qy = y3;
-      if (cubic) bezier3(x0, y0, x1, y1, x2, y2, x3, y3, maxError);
-      else bezier2(x0, y0, x1, y1, x2, y2, maxError);
+    } else if (op === OP_Q) {
+      const x1 = ma * args[k] + mc * args[k + 1] + me, y1 = mb * args[k] + md * args[k + 1] + mf;
+      ux = args[k + 2];
+      uy = args[k + 3];
+      k += 4;
+      const x2 = ma * ux + mc * uy + me, y2 = mb * ux + md * uy + mf;
+      // Degree elevation to a cubic is exact, keeps the end tangents' directions
+      // and gives the same flatness constant |P0 − 2P1 + P2|/4 (see ./bezier.ts).
+      bezier3(qx, qy, qx + (2 / 3) * (x1 - qx), qy + (2 / 3) * (y1 - qy),
+        x2 + (2 / 3) * (x1 - x2), y2 + (2 / 3) * (y1 - y2), x2, y2, maxError);
+      qx = x2;
+      qy = y2;
     } else if (op === OP_A) {
       const x = args[k + 5], y = args[k + 6];
       const status = arcToCenterInto(arc, ux, uy, args[k], args[k + 1], args[k + 2],
@@ -258,30 +262,6 @@ function bezier3(
     push(b0 * x0 + b1 * x1 + b2 * x2 + b3 * x3, b0 * y0 + b1 * y1 + b2 * y2 + b3 * y3);
   }
   push(x3, y3);
-  prevKind = kind;
-  ptx = ex;
-  pty = ey;
-  const e = flat / (n * n);
-  if (e > bound) bound = e;
-}
-
-/** Append a quadratic's vertices after the current last vertex (x0, y0), control points in mm. */
-function bezier2(x0: number, y0: number, x1: number, y1: number, x2: number, y2: number, maxError: number): void {
-  if (x0 === x1 && x1 === x2 && y0 === y1 && y1 === y2) return;
-  const flat = quadFlatness(x0, y0, x1, y1, x2, y2);
-  const n = stepsForFlatness(flat, maxError);
-  const kind = flat > 0 ? CURVED : STRAIGHT;
-  let sx = x1 - x0, sy = y1 - y0;
-  if (sx === 0 && sy === 0) { sx = x2 - x0; sy = y2 - y0; }
-  let ex = x2 - x1, ey = y2 - y1;
-  if (ex === 0 && ey === 0) { ex = x2 - x0; ey = y2 - y0; }
-  join(kind, sx, sy);
-  for (let i = 1; i < n; i++) {
-    const t = i / n, s = 1 - t;
-    const b0 = s * s, b1 = 2 * s * t, b2 = t * t;
-    push(b0 * x0 + b1 * x1 + b2 * x2, b0 * y0 + b1 * y1 + b2 * y2);
-  }
-  push(x2, y2);
   prevKind = kind;
   ptx = ex;
   pty = ey;

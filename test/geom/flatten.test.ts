@@ -147,6 +147,14 @@ describe('bezier flatness bound', () => {
     expect(quadFlatness(0, 0, 5, 10, 10, 0)).toBeCloseTo(5, 12);
     const pts: Pt[] = [[0, 0], [5, 10], [10, 0]];
     expect(deCasteljau(pts, 0.5)[1]).toBeCloseTo(5, 12);
+    // its exact cubic form (degree elevation, common practice) has the same constant
+    const r = rng(5);
+    for (let i = 0; i < 50; i++) {
+      const [x0, y0, x1, y1, x2, y2] = [r(), r(), r(), r(), r(), r()].map((v) => v * 100);
+      const c = cubicFlatness(x0, y0, x0 + (2 / 3) * (x1 - x0), y0 + (2 / 3) * (y1 - y0),
+        x2 + (2 / 3) * (x1 - x2), y2 + (2 / 3) * (y1 - y2), x2, y2);
+      expect(c).toBeCloseTo(quadFlatness(x0, y0, x1, y1, x2, y2), 10);
+    }
   });
 });
 
@@ -197,9 +205,29 @@ describe('flattenPath: proven bound under random matrices', () => {
       }
       expect(count).toBe(60);
       // The bound is not absurdly loose: some case uses a fair share of the budget.
-      expect(worstRatio).toBeGreaterThan(kind === 'arc' ? 0.7 : 0.2);
+      expect(worstRatio).toBeGreaterThan(kind === 'arc' ? 0.9 : 0.5);
     });
   }
+});
+
+describe('flattenPath: singular matrix', () => {
+  it('curves mapped onto a line still meet the bound', () => {
+    const M = m6(1, 2, 2, 4, 3, -1); // det = 0: everything lands on one line
+    const ctl: Pt[] = [[0, 0], [30, 40], [60, -20], [10, 10]];
+    const [c] = flattenPath(path([[OP_M, 0, 0], [OP_C, 30, 40, 60, -20, 10, 10]]), M, 0.01);
+    expect(measure(c, (t) => mapPt(M, deCasteljau(ctl, t)))).toBeLessThanOrEqual(0.01);
+    const a = arcToCenter(0, 0, 20, 10, 30, true, false, 15, 5);
+    if (a === null || a.kind !== 'arc') throw new Error('expected an arc');
+    const stats: FlattenStats = { bounds: [] };
+    const [d] = flattenPath(path([[OP_M, 0, 0], [OP_A, 20, 10, 30, 1, 0, 15, 5]]), M, 0.01, stats);
+    // W3C SVG 1.1 F.6.3.1 evaluation
+    const arcAt: Curve = (t) => {
+      const th = a.theta1 + t * a.dtheta, x = a.rx * Math.cos(th), y = a.ry * Math.sin(th);
+      return mapPt(M, [Math.cos(a.phi) * x - Math.sin(a.phi) * y + a.cx, Math.sin(a.phi) * x + Math.cos(a.phi) * y + a.cy]);
+    };
+    expect(measure(d, arcAt)).toBeLessThanOrEqual(stats.bounds[0] * (1 + 1e-9));
+    expect(stats.bounds[0]).toBeLessThanOrEqual(0.01);
+  });
 });
 
 describe('flattenPath: vertex counts against the chord formula', () => {
@@ -365,14 +393,15 @@ describe('flattenPath: performance', () => {
     flattenPath(p, M, 0.01); // warm-up
     const times: number[] = [];
     let checksum = 0;
-    for (let rep = 0; rep < 3; rep++) {
+    for (let rep = 0; rep < 5; rep++) {
       const t0 = performance.now();
       const out = flattenPath(p, M, 0.01);
       times.push(performance.now() - t0);
       checksum += out[0].xy.length + out[0].xy[out[0].xy.length - 1];
     }
     times.sort((a, b) => a - b);
-    expect(checksum).toBeGreaterThan(3 * 2 * N);
-    expect(times[1]).toBeLessThan(500);
+    expect(checksum).toBeGreaterThan(5 * 2 * N);
+    // best of 5 (other processes share the machine); about 30 ms when idle
+    expect(times[0]).toBeLessThan(300);
   });
 });
