@@ -19,6 +19,9 @@
  *   (the sagitta, REFERENCES.md §6, on the largest semi-axis). Valid for δ ≤ π;
  *   we also cap δ at π/2.
  *
+ * The bounds are exact-arithmetic statements; evaluating the vertices in
+ * doubles adds rounding of order 1e-16 × the coordinate size on top.
+ *
  * Topology: consecutive exactly equal vertices are dropped; OP_Z closes the
  * contour (the first vertex is not repeated); a subpath with fewer than two
  * distinct vertices yields nothing (an M alone, or only zero-length pieces).

@@ -271,10 +271,12 @@ describe('flattenPath: vertex counts against the chord formula', () => {
     }
     expect(lo).toBeGreaterThanOrEqual(50 - 1e-9);
     expect(hi).toBeLessThanOrEqual(50.0137);
-    // Count vs the exact circle at the same e: the uniform cubic bound costs about 1.5×.
+    // Count vs the exact circle at the same e (REFERENCES.md §6: 1571): the uniform
+    // cubic bound costs about 1.06× (1664 vertices).
     const exact = Math.ceil(Math.PI / Math.acos(1 - 1e-4 / R));
+    expect(exact).toBe(1571);
     expect(n).toBeGreaterThanOrEqual(exact);
-    expect(n).toBeLessThanOrEqual(1.6 * exact);
+    expect(n).toBeLessThanOrEqual(1.1 * exact);
     expect(c.corners?.length).toBe(0); // tangent-continuous joins
   });
 });
