@@ -60,7 +60,8 @@ const AS_LINE: ArcAsLine = Object.freeze({ kind: 'line' }) as ArcAsLine;
  *
  * @param out receives [cx, cy, rx, ry, phi, theta1, dtheta] (radians) when the result is ARC_ELLIPSE; untouched otherwise
  * @param phiDeg x-axis rotation in degrees, any value (taken modulo 360)
- * @returns ARC_OMITTED (endpoints exactly equal), ARC_LINE (a radius is 0) or ARC_ELLIPSE
+ * @returns ARC_OMITTED (endpoints exactly equal), ARC_LINE (a radius is 0; also, beyond the
+ *   spec, a non-finite radius or a chord that underflows next to the radii) or ARC_ELLIPSE
  */
 export function arcToCenterInto(
   out: Float64Array,
@@ -71,6 +72,8 @@ export function arcToCenterInto(
   // near-full arc (REFERENCES §1.4 A9) into nothing.
   if (x1 === x2 && y1 === y2) return ARC_OMITTED;
   if (rx === 0 || ry === 0) return ARC_LINE;
+  // Not in the spec: an infinite (or NaN) radius is taken as its limit, a line.
+  if (!Number.isFinite(rx) || !Number.isFinite(ry)) return ARC_LINE;
   rx = Math.abs(rx);
   ry = Math.abs(ry);
   let phi = (phiDeg % 360) * DEG;
@@ -87,6 +90,9 @@ export function arcToCenterInto(
   const L = Math.hypot(x1p / rx, y1p / ry);
   // Step 2 (F.6.5.2): the radicand (rx²ry² − rx²y1'² − ry²x1'²)/(rx²y1'² + ry²x1'²)
   // equals (1 − Λ)/Λ, which is written so it cannot go negative by rounding.
+  // Not in the spec: a chord below double resolution next to the radii
+  // (L underflows to 0) has no computable centre; draw the chord.
+  if (L === 0) return ARC_LINE;
   let k = 0;
   if (L >= 1) {
     // Radii too small (or exactly enough): scale up; the radicand is 0 (clamped).

@@ -132,6 +132,13 @@ describe('arcToCenter: check values', () => {
     expect(s.dtheta).toBeGreaterThan(0);
   });
 
+  it('beyond the spec: infinite radii and an underflowing chord are lines, never NaN', () => {
+    // project decision (not in the spec): the limit of an ever larger radius is the chord
+    expect(arcToCenter(0, 0, Infinity, 5, 0, false, true, 10, 0)).toEqual({ kind: 'line' });
+    expect(arcToCenter(0, 0, Number.NaN, 5, 0, false, true, 10, 0)).toEqual({ kind: 'line' });
+    expect(arcToCenter(0, 0, 1e300, 1e300, 0, true, true, 0, 1e-320)).toEqual({ kind: 'line' });
+  });
+
   it('φ is taken modulo 360° (F.6.2)', () => {
     // W3C SVG 1.1 F.6.2 (REFERENCES.md §1.1)
     const a = center(0, 0, 50, 25, 30, 1, 0, 60, 40);
