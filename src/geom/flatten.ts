@@ -145,7 +145,7 @@ function finish(out: Contour[], closed: boolean, stats: FlattenStats | undefined
  * @param maxError largest allowed distance between the mapped curve and the polyline, mm, > 0
  * @param stats optional; receives the bound actually achieved per contour
  * @returns one contour per subpath that has at least two distinct vertices
- * @throws RangeError for a non-positive maxError, or a curve that would need more than MAX_CURVE_STEPS vertices
+ * @throws RangeError for a non-positive maxError, an unknown opcode, or a curve that would need more than MAX_CURVE_STEPS vertices
  */
 export function flattenPath(p: PathData, toMm: Matrix, maxError: number, stats?: FlattenStats): Contour[] {
   if (!(maxError > 0) || !Number.isFinite(maxError)) {
@@ -236,6 +236,8 @@ export function flattenPath(p: PathData, toMm: Matrix, maxError: number, stats?:
       qy = sqy;
       // A command after Z other than M starts a new subpath at the same point.
       begin(qx, qy);
+    } else {
+      throw new RangeError(`unknown path opcode ${op} at segment ${i}`);
     }
   }
   finish(out, false, stats);

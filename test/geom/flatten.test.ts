@@ -330,6 +330,8 @@ describe('flattenPath: topology', () => {
     expect(() => flattenPath(p, I, 0)).toThrow(/got 0/);
     expect(() => flattenPath(p, I, Number.NaN)).toThrow(RangeError);
     expect(() => flattenPath(p, I, 1e-9)).toThrow(/steps/);
+    const bad: PathData = { ops: Uint8Array.of(OP_M, 9), args: Float64Array.of(0, 0) };
+    expect(() => flattenPath(bad, I, 0.1)).toThrow(/opcode 9/);
   });
 });
 
