@@ -29,7 +29,9 @@ interface Node {
   t0y: number;
   level: number;
   parent: Node | null;
-  pieces: Piece[];
+  /** The piece from the parent to here, and a second one when a biarc closed the contour. */
+  piece: Piece | null;
+  piece2: Piece | null;
   children: Node[] | null;
   reach: number;
   err: number;
@@ -64,20 +66,20 @@ function seedNode(p: SearchParams, tx: number, ty: number): Node {
   // Seed motor 1 + n (n: the tangent turned by −90°); its bivector part is (−tx, −ty, 0).
   return {
     a: p.start, qx: p.qx, qy: p.qy, bp: -tx, bq: -ty, br: 0, tx, ty, t0x: tx, t0y: ty,
-    level: 0, parent: null, pieces: [], children: null, reach: p.start, err: 0,
+    level: 0, parent: null, piece: null, piece2: null, children: null, reach: p.start, err: 0,
   };
 }
 
-function childNode(parent: Node, pieces: Piece[], b: number, p: SearchParams): Node {
-  const last = pieces[pieces.length - 1];
+function childNode(parent: Node, piece: Piece, piece2: Piece | null, b: number, p: SearchParams): Node {
+  const last = piece2 ?? piece;
   const pts = p.pts;
   const lo = Math.max(p.start, b - 1), hi = Math.min(p.last, b + 1);
   const ex = pts[2 * hi] - pts[2 * lo], ey = pts[2 * hi + 1] - pts[2 * lo + 1];
   const el = Math.hypot(ex, ey);
   const err = el > 0 ? Math.abs(last.tx * ey - last.ty * ex) / el : 0;
   return {
-    a: b, qx: last.x1, qy: last.y1, bp: last.m[1], bq: last.m[2], br: last.m[3], tx: last.tx, ty: last.ty,
-    t0x: parent.t0x, t0y: parent.t0y, level: parent.level + pieces.length, parent, pieces, children: null, reach: b, err,
+    a: b, qx: last.x1, qy: last.y1, bp: last.mp, bq: last.mq, br: last.mr, tx: last.tx, ty: last.ty,
+    t0x: parent.t0x, t0y: parent.t0y, level: parent.level + (piece2 ? 2 : 1), parent, piece, piece2, children: null, reach: b, err,
   };
 }
 
@@ -93,7 +95,7 @@ function expand(n: Node, p: SearchParams, onTerminal: (t: Node) => void): void {
       if (!(dot > 0 && Math.abs(cr) <= TANGENT_EPS)) piece = null;
     }
     if (piece) {
-      children.push(childNode(n, [piece], b, p));
+      children.push(childNode(n, piece, null, b, p));
       fails = 0;
     } else if (++fails > MAX_FAILS && !lineAlive) {
       break;
@@ -106,7 +108,7 @@ function expand(n: Node, p: SearchParams, onTerminal: (t: Node) => void): void {
       if (proj > 0 && off <= tol) {
         if (off > 0) {
           const lp = makePiece(pts, n.a, b, n.bp, n.bq, n.br, n.qx, n.qy, fx, fy, tol);
-          if (lp && lp.kind === 'line') children.push(childNode(n, [lp], b, p));
+          if (lp && lp.kind === 'line') children.push(childNode(n, lp, null, b, p));
           else if (!lp) lineAlive = false;
         }
       } else if (proj > 0) {
@@ -119,16 +121,20 @@ function expand(n: Node, p: SearchParams, onTerminal: (t: Node) => void): void {
   for (const c of children) if (c.a > reach) reach = c.a;
   n.children = children;
   n.reach = reach;
-  if (p.closed) {
+  // A biarc closes at most about two pieces' reach: only try it near the end.
+  if (p.closed && last - n.a <= 3 * (reach - n.a) + 4) {
     const pair = biarcClosure(pts, n.a, last, n.bp, n.bq, n.br, n.qx, n.qy, n.tx, n.ty, n.t0x, n.t0y, tol);
-    if (pair) onTerminal(childNode(n, pair, last, p));
+    if (pair) onTerminal(childNode(n, pair[0], pair[1], last, p));
   }
   for (const c of children) if (c.a === last) onTerminal(c);
 }
 
 function collect(end: Node): Piece[] {
   const out: Piece[] = [];
-  for (let n: Node | null = end; n; n = n.parent) for (let i = n.pieces.length - 1; i >= 0; i--) out.push(n.pieces[i]);
+  for (let n: Node | null = end; n; n = n.parent) {
+    if (n.piece2) out.push(n.piece2);
+    if (n.piece) out.push(n.piece);
+  }
   return out.reverse();
 }
 
@@ -161,10 +167,12 @@ export function searchSpline(p: SearchParams): SearchResult {
         }
       }
     }
+    // Unkept children must die young: drop the expanded lists of this level.
+    for (const n of frontier) n.children = null;
     let cand: Node[] = [];
     for (const list of byKnot.values()) for (const c of list) cand.push(c);
     cand.sort((u, v) => v.a - u.a || u.err - v.err);
-    if (cand.length > 3 * p.width) cand = cand.slice(0, 3 * p.width);
+    if (cand.length > 2 * p.width) cand = cand.slice(0, 2 * p.width);
     for (const c of cand) expand(c, p, onTerminal);
     cand.sort((u, v) => v.reach - u.reach || v.a - u.a || u.err - v.err);
     frontier = cand.slice(0, p.width);

@@ -9,7 +9,6 @@
  * point of the piece is within `tol` of the path too (two-sided).
  */
 
-const TWO_PI = 2 * Math.PI;
 
 /** Distance from (px, py) to the segment (ax, ay)–(bx, by). */
 export function distPointSegment(px: number, py: number, ax: number, ay: number, bx: number, by: number): number {
@@ -39,9 +38,9 @@ export function arcFits(
   cx: number, cy: number, r: number, sweep: number,
   qx: number, qy: number, ex: number, ey: number, tol: number,
 ): boolean {
-  const ux = qx - cx, uy = qy - cy;
+  const ux = qx - cx, uy = qy - cy, vx = ex - cx, vy = ey - cy;
   const sgn = sweep < 0 ? -1 : 1;
-  const span = Math.abs(sweep);
+  const large = Math.abs(sweep) > Math.PI;
   const inner = r - tol;
   let prevX = 0, prevY = 0;
   for (let k = a; k <= b; k++) {
@@ -49,9 +48,10 @@ export function arcFits(
     const wx = px - cx, wy = py - cy;
     const d = Math.sqrt(wx * wx + wy * wy);
     if (Math.abs(d - r) > tol) return false;
-    let th = sgn * Math.atan2(ux * wy - uy * wx, ux * wx + uy * wy);
-    if (th < 0) th += TWO_PI;
-    if (th > span) {
+    // Sector test without trigonometry: w lies after the start and before the end, turning the sweep's way.
+    const afterStart = sgn * (ux * wy - uy * wx) >= 0, beforeEnd = sgn * (wx * vy - wy * vx) >= 0;
+    const inSector = large ? afterStart || beforeEnd : afterStart && beforeEnd;
+    if (!inSector) {
       // Outside the sector: acceptable only near an end of the arc.
       const dq = Math.hypot(px - qx, py - qy), de = Math.hypot(px - ex, py - ey);
       if (dq > tol && de > tol) return false;

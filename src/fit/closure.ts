@@ -47,7 +47,7 @@ export function biarcClosure(
   }
   const first = makePiece(pts, a, split, bp, bq, br, qx, qy, jx, jy, tol);
   if (!first) return null;
-  const second = makePiece(pts, split, last, first.m[1], first.m[2], first.m[3], jx, jy, ex, ey, tol);
+  const second = makePiece(pts, split, last, first.mp, first.mq, first.mr, jx, jy, ex, ey, tol);
   if (!second) return null;
   if (second.tx * t0x + second.ty * t0y <= 0 || Math.abs(second.tx * t0y - second.ty * t0x) > 1e-6) return null;
   return [first, second];

@@ -54,32 +54,28 @@ export function fitPolyline(xy: Float64Array, opts: FitOptions): FitResult {
   }
   // 1. Distinct consecutive vertices, in a local frame at the first vertex (keeps precision far from the origin).
   const ox = n > 0 ? xy[0] : 0, oy = n > 0 ? xy[1] : 0;
-  const orig: number[] = [];
-  const loc: number[] = [];
+  const orig = new Int32Array(n);
+  const clean = new Float64Array(2 * n);
+  let m = 0;
   for (let i = 0; i < n; i++) {
     const x = xy[2 * i] - ox, y = xy[2 * i + 1] - oy;
-    const k = loc.length;
-    if (k > 0 && loc[k - 2] === x && loc[k - 1] === y) continue;
-    loc.push(x, y);
-    orig.push(i);
+    if (m > 0 && clean[2 * m - 2] === x && clean[2 * m - 1] === y) continue;
+    clean[2 * m] = x;
+    clean[2 * m + 1] = y;
+    orig[m++] = i;
   }
-  if (closedIn && orig.length > 1 && loc[0] === loc[loc.length - 2] && loc[1] === loc[loc.length - 1]) {
-    loc.length -= 2;
-    orig.pop();
-  }
-  const m = orig.length;
+  if (closedIn && m > 1 && clean[0] === clean[2 * m - 2] && clean[1] === clean[2 * m - 1]) m--;
   const closed = closedIn && m >= 3;
   const forced = new Set<number>();
   if (opts.corners) {
     const pos = new Map<number, number>();
-    orig.forEach((o, k) => pos.set(o, k));
+    for (let k = 0; k < m; k++) pos.set(orig[k], k);
     for (let i = 0; i < opts.corners.length; i++) {
       const k = pos.get(opts.corners[i]);
       if (k !== undefined) forced.add(k);
     }
   }
   if (m < 2) return { segments: [], corners: [], breaks: 0 };
-  const clean = Float64Array.from(loc);
   const tolFit = FIT_SHARE * tol - THIN_SHARE * tol;
 
   // 2. Thin (closed: walk round and back to vertex 0).
@@ -215,13 +211,13 @@ function fitClosed(pts: Float64Array, last: number, tol: number, width: number, 
   return { pieces: straightenFlatArcs(pts, mergeNeighbours(pts, res.pieces, tol), maxRadius, tol), breaks: 0 };
 }
 
-function toSegment(p: Piece, map: (j: number) => number, ox: number, oy: number, orig: number[], coarseIdx: number[]): Segment {
+function toSegment(p: Piece, map: (j: number) => number, ox: number, oy: number, orig: Int32Array, coarseIdx: number[]): Segment {
   const m = new Float64Array(4);
-  m[0] = p.m[0];
+  m[0] = p.ms;
   // Move the motor back from the local frame: the centre (−q/r, p/r) shifts by (ox, oy).
-  m[1] = p.m[1] + p.m[3] * oy;
-  m[2] = p.m[2] - p.m[3] * ox;
-  m[3] = p.m[3];
+  m[1] = p.mp + p.mr * oy;
+  m[2] = p.mq - p.mr * ox;
+  m[3] = p.mr;
   return {
     kind: p.kind, motor: m,
     x0: p.x0 + ox, y0: p.y0 + oy, x1: p.x1 + ox, y1: p.y1 + oy,

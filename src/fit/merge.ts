@@ -21,10 +21,10 @@ export function mergeNeighbours(pts: Float64Array, pieces: Piece[], tol: number)
         bq = -t0y;
         br = 0;
       } else {
-        const m = out[i - 1].m;
-        bp = m[1];
-        bq = m[2];
-        br = m[3];
+        const prev = out[i - 1];
+        bp = prev.mp;
+        bq = prev.mq;
+        br = prev.mr;
       }
       const full = Math.hypot(B.x1 - A.x0, B.y1 - A.y0) <= 1e-9 * tol;
       const c = full ? null : makePiece(pts, A.a, B.b, bp, bq, br, A.x0, A.y0, B.x1, B.y1, tol);
@@ -47,10 +47,10 @@ export function sameCarrier(A: Piece, B: Piece, tol: number): boolean {
     if (ax * bx + ay * by <= 0 || Math.abs(ax * by - ay * bx) > TANGENT_EPS) return false;
     return Math.abs((B.x0 - A.x0) * ay - (B.y0 - A.y0) * ax) <= eps;
   }
-  const ra = A.m[3], rb = B.m[3];
-  const acx = -A.m[2] / ra, acy = A.m[1] / ra, bcx = -B.m[2] / rb, bcy = B.m[1] / rb;
+  const ra = A.mr, rb = B.mr;
+  const acx = -A.mq / ra, acy = A.mp / ra, bcx = -B.mq / rb, bcy = B.mp / rb;
   const rA = Math.hypot(A.x0 - acx, A.y0 - acy), rB = Math.hypot(B.x0 - bcx, B.y0 - bcy);
-  const sa = -2 * Math.atan2(ra, A.m[0]), sb = -2 * Math.atan2(rb, B.m[0]);
+  const sa = -2 * Math.atan2(ra, A.ms), sb = -2 * Math.atan2(rb, B.ms);
   return sa * sb > 0 && Math.hypot(acx - bcx, acy - bcy) <= eps && Math.abs(rA - rB) <= eps;
 }
 
@@ -58,11 +58,10 @@ export function sameCarrier(A: Piece, B: Piece, tol: number): boolean {
 export function straightenFlatArcs(pts: Float64Array, pieces: Piece[], maxRadius: number, tol: number): Piece[] {
   return pieces.map((p) => {
     if (p.kind !== 'arc') return p;
-    const r = p.m[3];
-    const rad = Math.hypot(p.x0 + p.m[2] / r, p.y0 - p.m[1] / r);
+    const r = p.mr;
+    const rad = Math.hypot(p.x0 + p.mq / r, p.y0 - p.mp / r);
     if (rad <= maxRadius || !lineFits(pts, p.a, p.b, p.x0, p.y0, p.x1, p.y1, tol)) return p;
     const dx = p.x1 - p.x0, dy = p.y1 - p.y0, l = Math.hypot(dx, dy);
-    const m = new Float64Array([1, -0.5 * dx, -0.5 * dy, 0]);
-    return { ...p, kind: 'line', m, tx: dx / l, ty: dy / l };
+    return { ...p, kind: 'line', ms: 1, mp: -0.5 * dx, mq: -0.5 * dy, mr: 0, tx: dx / l, ty: dy / l };
   });
 }

@@ -6,10 +6,14 @@
 import { arcStepScalar } from '../pga/arcStep.js';
 import { arcFits, lineFits } from './check.js';
 
-/** A piece between two knots. `m` is its normalised motor [1, e01, e02, e12]. */
+/** A piece between two knots, with the motor that carries its start to its end. */
 export interface Piece {
   kind: 'arc' | 'line';
-  m: Float64Array;
+  /** Normalised motor ms + mp e01 + mq e02 + mr e12. */
+  ms: number;
+  mp: number;
+  mq: number;
+  mr: number;
   x0: number;
   y0: number;
   x1: number;
@@ -25,6 +29,9 @@ export interface Piece {
 /** An arc whose sagitta is below this fraction of the tolerance is a line. */
 const LINE_SAGITTA = 1e-6;
 
+/** The step's motor before it is known to fit; copied out only for pieces that pass. */
+const scratch = new Float64Array(4);
+
 /**
  * Build the piece from (qx, qy) to (ex, ey) continuing the motor whose bivector
  * part is (bp, bq, br), and check it against vertices a..b. Null if degenerate or
@@ -38,19 +45,15 @@ export function makePiece(
   const dx = ex - qx, dy = ey - qy;
   const chord = Math.sqrt(dx * dx + dy * dy);
   if (!(chord > 0)) return null;
-  const m = new Float64Array(4);
+  const m = scratch;
   if (!arcStepScalar(m, 0, bp, bq, br, qx, qy, ex, ey)) return null;
   const s = m[0], r = m[3];
   const halfAngle = Math.abs(Math.atan2(r, s)); // |φ|: half the arc's central angle
   const sagitta = 0.5 * chord * Math.tan(0.5 * halfAngle);
   if (sagitta <= LINE_SAGITTA * tol) {
     // The two lines of the step were parallel up to rounding: a translation.
-    m[0] = 1;
-    m[1] = -0.5 * dx;
-    m[2] = -0.5 * dy;
-    m[3] = 0;
     if (!lineFits(pts, a, b, qx, qy, ex, ey, tol)) return null;
-    return { kind: 'line', m, x0: qx, y0: qy, x1: ex, y1: ey, a, b, tx: dx / chord, ty: dy / chord };
+    return { kind: 'line', ms: 1, mp: -0.5 * dx, mq: -0.5 * dy, mr: 0, x0: qx, y0: qy, x1: ex, y1: ey, a, b, tx: dx / chord, ty: dy / chord };
   }
   const cx = -m[2] / r, cy = m[1] / r;
   const rad = Math.hypot(qx - cx, qy - cy);
@@ -59,7 +62,7 @@ export function makePiece(
   // Tangent at the end: the radius vector turned by ±90° in the sweep direction.
   const sg = sweep > 0 ? 1 : -1;
   const tx = (-sg * (ey - cy)) / rad, ty = (sg * (ex - cx)) / rad;
-  return { kind: 'arc', m, x0: qx, y0: qy, x1: ex, y1: ey, a, b, tx, ty };
+  return { kind: 'arc', ms: s, mp: m[1], mq: m[2], mr: r, x0: qx, y0: qy, x1: ex, y1: ey, a, b, tx, ty };
 }
 
 /** Unit tangent at the start of a piece (for tests and the closure). */
@@ -68,9 +71,9 @@ export function pieceStartTangent(p: Piece): [number, number] {
     const l = Math.hypot(p.x1 - p.x0, p.y1 - p.y0);
     return [(p.x1 - p.x0) / l, (p.y1 - p.y0) / l];
   }
-  const r = p.m[3];
-  const cx = -p.m[2] / r, cy = p.m[1] / r;
+  const r = p.mr;
+  const cx = -p.mq / r, cy = p.mp / r;
   const rad = Math.hypot(p.x0 - cx, p.y0 - cy);
-  const sg = -2 * Math.atan2(r, p.m[0]) > 0 ? 1 : -1;
+  const sg = -2 * Math.atan2(r, p.ms) > 0 ? 1 : -1;
   return [(-sg * (p.y0 - cy)) / rad, (sg * (p.x0 - cx)) / rad];
 }

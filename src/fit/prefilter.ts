@@ -14,7 +14,7 @@
  */
 
 /**
- * Indices of the vertices to keep, ascending. The first and last index of every
+ * Positions (into `order`) of the vertices to keep, ascending. The first and last index of every
  * run between `anchors` (and the ends) are always kept.
  * @param xy flat x,y pairs
  * @param order vertex indices to walk, in order (lets a closed contour pass its wrap-around)
@@ -31,8 +31,9 @@ export function thinWithin(xy: Float64Array, order: Int32Array, delta: number, a
   while (anchor < n - 1) {
     const ia = order[anchor];
     const ax = xy[2 * ia], ay = xy[2 * ia + 1];
-    let lo = -Infinity, hi = Infinity;
-    let refX = 0, refY = 0, haveRef = false;
+    // The wedge is kept as its two boundary directions (unit vectors), lo clockwise of hi;
+    // it is always narrower than 180°, so cross-product signs order directions in it.
+    let loX = 0, loY = 0, hiX = 0, hiY = 0, open = false;
     let dmax = 0;
     let lastValid = anchor + 1;
     for (let k = anchor + 1; k < n; k++) {
@@ -40,24 +41,37 @@ export function thinWithin(xy: Float64Array, order: Int32Array, delta: number, a
       const vx = xy[2 * ik] - ax, vy = xy[2 * ik + 1] - ay;
       const d = Math.sqrt(vx * vx + vy * vy);
       if (d > delta) {
-        let alpha = 0;
-        if (!haveRef) {
-          refX = vx / d;
-          refY = vy / d;
-          haveRef = true;
+        const ux = vx / d, uy = vy / d;
+        const sn = delta / d, cs = Math.sqrt(1 - sn * sn);
+        if (!open) {
+          loX = ux * cs + uy * sn;
+          loY = uy * cs - ux * sn;
+          hiX = ux * cs - uy * sn;
+          hiY = uy * cs + ux * sn;
+          open = true;
+          if (d >= dmax) lastValid = k;
         } else {
-          alpha = Math.atan2(refX * vy - refY * vx, refX * vx + refY * vy);
+          // A point behind the wedge ends the segment (conservative: never wrong, only less thinning).
+          if ((loX + hiX) * ux + (loY + hiY) * uy <= 0) break;
+          const inside = loX * uy - loY * ux >= 0 && ux * hiY - uy * hiX >= 0;
+          if (inside && d >= dmax) lastValid = k;
+          const lx = ux * cs + uy * sn, ly = uy * cs - ux * sn; // u turned by −β
+          const hx = ux * cs - uy * sn, hy = uy * cs + ux * sn; // u turned by +β
+          if (loX * ly - loY * lx > 0) {
+            loX = lx;
+            loY = ly;
+          }
+          if (hx * hiY - hy * hiX > 0) {
+            hiX = hx;
+            hiY = hy;
+          }
+          if (loX * hiY - loY * hiX < 0) break;
         }
-        if (alpha >= lo && alpha <= hi && d >= dmax) lastValid = k;
-        const beta = Math.asin(delta / d);
-        if (alpha - beta > lo) lo = alpha - beta;
-        if (alpha + beta < hi) hi = alpha + beta;
         if (d > dmax) dmax = d;
-      } else if (d >= dmax && k === anchor + 1) {
+      } else if (k === anchor + 1) {
         lastValid = k;
       }
-      // The wedge closed, or a point that must stay a vertex: end the segment here at the latest.
-      if (lo > hi || (anchors !== null && anchors[k] === 1)) break;
+      if (anchors !== null && anchors[k] === 1) break;
     }
     keep[kept++] = lastValid;
     anchor = lastValid;
