@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { SaxesParser } from 'saxes';
 import { readSvg, type GeometryElement } from '../../src/svg/document.js';
-import { SvgInputError } from '../../src/svg/errors.js';
+import { lineColumnAt, SvgInputError } from '../../src/svg/errors.js';
 
 const OPTS = { assumedMmPerUnit: 25.4 / 96 };
 const NS = 'xmlns="http://www.w3.org/2000/svg"';
@@ -55,6 +55,13 @@ describe('readSvg: root and errors', () => {
     expect(d.warnings.join()).not.toMatch(/xmlns/);
   });
 
+  it('resolves namespaces per element: unbound prefixes are errors, xmlns="" leaves SVG (Namespaces in XML 1.0 §6.2)', () => {
+    expect(failure(`<svg ${NS}><q:path/></svg>`).message).toMatch(/^XML error at 1:\d+: unbound namespace prefix in <q:path>$/);
+    const d = readSvg(`<svg ${NS}><g xmlns=""><path d="M1 1"/><g xmlns="http://www.w3.org/2000/svg"><path d="M2 2"/></g></g></svg>`, OPTS);
+    expect(d.elements.map((e) => e.attrs.d)).toEqual(['M2 2']);
+    expect(d.elements[0].reason).toBe('inside <g> (not SVG)');
+  });
+
   it('reads an svg without a namespace, with a warning', () => {
     const d = readSvg('<svg><path d="M0 0"/></svg>', OPTS);
     expect(d.elements).toHaveLength(1);
@@ -66,6 +73,21 @@ describe('readSvg: root and errors', () => {
     expect(e.message).toMatch(/^XML error at 4:\d+: unexpected close tag$/);
     expect(e.line).toBe(4);
     expect(failure('').message).toMatch(/^XML error at 1:1: document must contain a root element$/);
+  });
+});
+
+describe('lineColumnAt', () => {
+  it('counts CR LF, CR and LF as one line end (XML 1.0 §2.11) and columns in code points', () => {
+    const t = 'a\r\nb\rc\n😀é<';
+    expect(lineColumnAt(t, 0)).toEqual({ line: 1, column: 1 });
+    expect(lineColumnAt(t, 3)).toEqual({ line: 2, column: 1 });
+    expect(lineColumnAt(t, 5)).toEqual({ line: 3, column: 1 });
+    expect(lineColumnAt(t, t.length - 1)).toEqual({ line: 4, column: 3 }); // '<' after an astral character and é
+  });
+
+  it('places an XML error after non-ASCII text on the right column', () => {
+    const e = failure(`<svg ${NS}>\r\n😀é<g></svg>`);
+    expect(e.message).toBe('XML error at 2:11: unexpected close tag');
   });
 });
 
