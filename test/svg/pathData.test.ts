@@ -250,10 +250,10 @@ describe('speed', () => {
     const d = parts.join('');
     const warm = d.slice(0, 2_000_000);
     for (let r = 0; r < 3; r++) parsePathData(warm); // warm-up so the JIT has tiered up
-    // best of 3: the machine is shared, the minimum is the least disturbed run
+    // best of 5: the machine is shared, the minimum is the least disturbed run
     let ms = Infinity;
     let p = parsePathData('');
-    for (let r = 0; r < 3; r++) {
+    for (let r = 0; r < 5; r++) {
       const t0 = performance.now();
       p = parsePathData(d);
       ms = Math.min(ms, performance.now() - t0);
@@ -261,6 +261,7 @@ describe('speed', () => {
     expect(p.error).toBeNull();
     expect(p.ops.length).toBe(k + 1);
     expect(p.args[2 * k + 1]).toBe(-(((k - 1) * 7) % 1000) * 0.5); // checksum: last value read
+    console.log(`pathData speed: ${d.length} chars, best of 5 = ${ms.toFixed(0)} ms`);
     expect(ms).toBeLessThan(1000);
   }, 60_000);
 });
