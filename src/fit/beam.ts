@@ -70,7 +70,7 @@ function seedNode(p: SearchParams, tx: number, ty: number): Node {
   };
 }
 
-function childNode(parent: Node, piece: Piece, piece2: Piece | null, b: number, p: SearchParams): Node {
+function childNode(parent: Node, piece: Piece, piece2: Piece | null, b: number, p: SearchParams, next = b): Node {
   const last = piece2 ?? piece;
   const pts = p.pts;
   const lo = Math.max(p.start, b - 1), hi = Math.min(p.last, b + 1);
@@ -78,7 +78,7 @@ function childNode(parent: Node, piece: Piece, piece2: Piece | null, b: number, 
   const el = Math.hypot(ex, ey);
   const err = el > 0 ? Math.abs(last.tx * ey - last.ty * ex) / el : 0;
   return {
-    a: b, qx: last.x1, qy: last.y1, bp: last.mp, bq: last.mq, br: last.mr, tx: last.tx, ty: last.ty,
+    a: next, qx: last.x1, qy: last.y1, bp: last.mp, bq: last.mq, br: last.mr, tx: last.tx, ty: last.ty,
     t0x: parent.t0x, t0y: parent.t0y, level: parent.level + (piece2 ? 2 : 1), parent, piece, piece2, children: null, reach: b, err,
   };
 }
@@ -115,6 +115,7 @@ function expand(n: Node, p: SearchParams, onTerminal: (t: Node) => void): void {
         lineAlive = false;
       }
     }
+    if (b + 1 < last) fillet(n, b, p, children);
     if (fails > MAX_FAILS && !lineAlive) break;
   }
   let reach = n.a;
@@ -127,6 +128,40 @@ function expand(n: Node, p: SearchParams, onTerminal: (t: Node) => void): void {
     if (pair) onTerminal(childNode(n, pair[0], pair[1], last, p));
   }
   for (const c of children) if (c.a === last) onTerminal(c);
+}
+
+/** Edges at least this many tolerances long are straight runs worth meeting exactly. */
+const LONG_EDGE = 8;
+
+/**
+ * The arc from the node's knot, continuing its tangent, that ends exactly
+ * tangent to the long edge b → b+1 and on it (a fillet), so that the straight
+ * run after it can be one line. The child stands for vertices up to b; the next
+ * piece starts on the edge.
+ */
+function fillet(n: Node, b: number, p: SearchParams, children: Node[]): void {
+  const pts = p.pts;
+  const bx = pts[2 * b], by = pts[2 * b + 1];
+  let dx = pts[2 * b + 2] - bx, dy = pts[2 * b + 3] - by;
+  const len = Math.hypot(dx, dy);
+  if (!(len >= LONG_EDGE * p.tol)) return;
+  dx /= len;
+  dy /= len;
+  const cr = n.tx * dy - n.ty * dx;
+  if (Math.abs(cr) < 1e-9) return; // parallel: a line child covers it
+  const sg = cr > 0 ? 1 : -1;
+  // Unit normals towards the centre at the start (of T) and at the end (of D).
+  const nx = -sg * n.ty, ny = sg * n.tx, mx = -sg * dy, my = sg * dx;
+  const ux = nx - mx, uy = ny - my;
+  const den = ux * dy - uy * dx;
+  if (den === 0) return;
+  const r = ((bx - n.qx) * dy - (by - n.qy) * dx) / den;
+  if (!(r > 0) || !Number.isFinite(r)) return;
+  const ex = n.qx + r * ux, ey = n.qy + r * uy;
+  const t = (ex - bx) * dx + (ey - by) * dy;
+  if (t < 0 || t >= len) return;
+  const piece = makePiece(pts, n.a, b, n.bp, n.bq, n.br, n.qx, n.qy, ex, ey, p.tol);
+  if (piece) children.push(childNode(n, piece, null, b, p, b + 1));
 }
 
 function collect(end: Node): Piece[] {

@@ -103,7 +103,7 @@ export function fitPolyline(xy: Float64Array, opts: FitOptions): FitResult {
 
   // 4. Pieces between corners (or one seam piece for a smooth closed contour).
   const extent = bboxDiagonal(cxy);
-  const maxRadius = 1e3 * Math.max(extent, tol);
+  const maxRadius = Math.max(20 * extent, 1e4 * tol);
   const out: Segment[] = [];
   let breaks = 0;
   const emit = (pieces: Piece[], map: (j: number) => number): void => {

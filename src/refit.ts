@@ -1,0 +1,262 @@
+/**
+ * The main job, end to end and pure: SVG text in, SVG text and a report out.
+ *
+ * read (src/svg) → flatten into mm contours (src/geom) → fit arcs and lines
+ * (src/fit, on the rotor kernel src/pga) → write path data back in each
+ * element's own coordinates (src/write) → measure the written text against the
+ * original, independently (src/report). An element whose measured deviation is
+ * over the tolerance keeps its original geometry and is flagged.
+ *
+ * Error budget per element (all in mm): flattening of curves 5 % of the
+ * tolerance, output rounding (the writer's proven bound for the chosen number of
+ * decimals), the fit gets the rest.
+ */
+import { resolveOptions, type Options } from './options.js';
+import { readSvg, type GeometryElement, type SvgDocument } from './svg/document.js';
+import { parsePathData } from './svg/pathData.js';
+import { shapeToPath, type ShapeName } from './svg/shapes.js';
+import { parseTransform } from './svg/transform.js';
+import { invert, maxScale, multiply } from './svg/matrix.js';
+import { OP_A, OP_C, OP_Q, type ParsedPath, type PathData } from './svg/pathTypes.js';
+import type { Matrix } from './svg/matrixTypes.js';
+import { flattenPath } from './geom/flatten.js';
+import type { Contour } from './geom/contour.js';
+import { fitPolyline } from './fit/fitPolyline.js';
+import { thinWithin } from './fit/prefilter.js';
+import { PathWriter } from './write/pathWriter.js';
+import { emitSegments, type EmitContour, writtenArcErrorBound } from './write/emit.js';
+import { digitsForTolerance } from './write/numbers.js';
+import { applyEdits, editStartTag, type Edit } from './write/document.js';
+import { measureDeviation } from './report/measure.js';
+import type { ElementReport, FileReport } from './report/types.js';
+import { VERSION } from './version.js';
+
+/** Share of the tolerance given to flattening curves. */
+const FLATTEN_SHARE = 0.05;
+/** Share of the tolerance given to output rounding (the digits are chosen so the writer's bound fits). */
+const ROUNDING_SHARE = 0.05;
+
+/** Time spent per stage, milliseconds. */
+export interface StageTimes {
+  parse: number;
+  flatten: number;
+  fit: number;
+  write: number;
+  measure: number;
+}
+
+export interface RefitResult {
+  /** The new document text (the input itself when nothing was rewritten). */
+  text: string;
+  report: FileReport;
+  /** Per-stage times, for benchmarks and the verbose summary. */
+  times: StageTimes;
+}
+
+/** Attributes a shape loses when it becomes a path. */
+const SHAPE_ATTRS: Readonly<Record<ShapeName, readonly string[]>> = {
+  rect: ['x', 'y', 'width', 'height', 'rx', 'ry'],
+  circle: ['cx', 'cy', 'r'],
+  ellipse: ['cx', 'cy', 'rx', 'ry'],
+  line: ['x1', 'y1', 'x2', 'y2'],
+  polyline: ['points'],
+  polygon: ['points'],
+};
+
+const now = (): number => performance.now();
+
+/**
+ * Refit every curve of an SVG document.
+ * @param text the whole document
+ * @param partial options (see src/options.ts); `file` only names the input in the report
+ * @throws SvgInputError for input that is not a readable SVG document
+ */
+export function refitSvg(text: string, partial: Partial<Options> = {}, file: string | null = null): RefitResult {
+  const t0 = now();
+  const opts = resolveOptions(partial);
+  const times: StageTimes = { parse: 0, flatten: 0, fit: 0, write: 0, measure: 0 };
+  let t = now();
+  const doc = readSvg(text, { assumedMmPerUnit: opts.assumedMmPerUnit });
+  times.parse += now() - t;
+  const warnings = doc.warnings.slice();
+  const edits: Edit[] = [];
+  const elements: ElementReport[] = [];
+  for (const el of doc.elements) {
+    if (!el.rewritable) continue;
+    const r = refitElement(doc, el, opts, times, warnings);
+    if (!r) continue;
+    elements.push(r.report);
+    if (r.edits) edits.push(...r.edits);
+  }
+  t = now();
+  const out = applyEdits(text, edits);
+  times.write += now() - t;
+  const report = summarise(elements, opts.tolerance, text, out, warnings, file, now() - t0);
+  return { text: out, report, times };
+}
+
+interface ElementOutcome {
+  report: ElementReport;
+  edits: Edit[] | null;
+}
+
+function label(el: GeometryElement): string {
+  return `<${el.name}${el.id ? ` id="${el.id}"` : ''}> (element ${el.index})`;
+}
+
+function readGeometry(el: GeometryElement, warnings: string[]): ParsedPath | null {
+  if (el.name === 'path') {
+    const p = parsePathData(el.attrs.d ?? '');
+    if (p.error) warnings.push(`${label(el)}: path data error at offset ${p.error.offset}: ${p.error.message}; the part before it is kept`);
+    return p;
+  }
+  const s = shapeToPath(el.name, (a) => el.attrs[a], el.viewportW, el.viewportH);
+  if (s.error) warnings.push(`${label(el)}: ${s.error}`);
+  return s.path;
+}
+
+function hasCurves(p: PathData): boolean {
+  for (let i = 0; i < p.ops.length; i++) if (p.ops[i] === OP_C || p.ops[i] === OP_Q || p.ops[i] === OP_A) return true;
+  return false;
+}
+
+function baseReport(el: GeometryElement, p: ParsedPath): ElementReport {
+  const commandsBefore = el.name === 'path' ? { ...p.counts } : { [el.name]: 1 };
+  return {
+    index: el.index, name: el.name, id: el.id, ancestors: el.ancestors, commandsBefore,
+    straightMovesNeeded: 0, segmentsAfter: { arcs: 0, lines: 0 }, deviation: null, kept: true, keptReason: null,
+  };
+}
+
+function refitElement(doc: SvgDocument, el: GeometryElement, opts: Options, times: StageTimes, warnings: string[]): ElementOutcome | null {
+  let t = now();
+  const p = readGeometry(el, warnings);
+  times.parse += now() - t;
+  if (!p || p.ops.length === 0) return null;
+  const report = baseReport(el, p);
+  const exactShape = el.name === 'rect' || el.name === 'circle' || el.name === 'ellipse' || el.name === 'line';
+  if (exactShape && !opts.shapesAsPaths && !opts.bakeTransforms) {
+    report.keptReason = 'exact shape (kept as written)';
+    return { report, edits: null };
+  }
+  const tol = opts.tolerance;
+  const curved = hasCurves(p);
+  // Where the written coordinates live: the element's own user units, or root user units when baking.
+  const writtenToMm: Matrix = opts.bakeTransforms ? doc.rootToMm : el.toMm;
+  const mmToLocal = invert(new Float64Array(6), writtenToMm);
+  if (!mmToLocal) {
+    report.keptReason = 'coordinate system cannot be inverted';
+    return { report, edits: null };
+  }
+  const mmPerUnit = maxScale(writtenToMm);
+  const digits = opts.digits ?? digitsForTolerance((tol * ROUNDING_SHARE * 20) / 3, mmPerUnit);
+  const roundMm = writtenArcErrorBound(digits) * mmPerUnit;
+  const flatMm = curved ? FLATTEN_SHARE * tol : 0;
+  const fitTol = tol - flatMm - roundMm;
+  if (!(fitTol > 0.5 * tol)) {
+    report.keptReason = `too few decimals (${digits}) for the tolerance`;
+    return { report, edits: null };
+  }
+  t = now();
+  let contours: Contour[];
+  try {
+    contours = flattenPath(p, el.toMm, curved ? flatMm : tol);
+  } catch (e) {
+    times.flatten += now() - t;
+    report.keptReason = `cannot flatten: ${(e as Error).message}`;
+    return { report, edits: null };
+  }
+  times.flatten += now() - t;
+  t = now();
+  const fitted: EmitContour[] = [];
+  let arcs = 0, lines = 0, moves = 0;
+  for (const c of contours) {
+    const r = fitPolyline(c.xy, { tolerance: fitTol, closed: c.closed, cornerAngle: opts.cornerAngle, corners: c.corners });
+    fitted.push({ segments: r.segments, closed: c.closed });
+    for (const s of r.segments) if (s.kind === 'arc') arcs++; else lines++;
+    moves += straightMoves(c, tol);
+  }
+  times.fit += now() - t;
+  report.straightMovesNeeded = moves;
+  t = now();
+  const sink = new PathWriter({ digits });
+  const stats = emitSegments(sink, fitted, mmToLocal, { digits });
+  const d = sink.toString();
+  times.write += now() - t;
+  report.segmentsAfter = { arcs: stats.arcs, lines: stats.lines };
+  void arcs;
+  void lines;
+  // Already as short as it can be: only lines and arcs, and no fewer pieces after fitting.
+  const before = p.ops.length;
+  if (!curved && stats.arcs + stats.lines >= before - contours.length && el.name !== 'polyline' && el.name !== 'polygon') {
+    report.keptReason = 'already no longer than a refit';
+    report.segmentsAfter = { arcs: 0, lines: 0 };
+    return { report, edits: null };
+  }
+  t = now();
+  const written = parsePathData(d);
+  report.deviation = measureDeviation(p, el.toMm, written, writtenToMm, tol);
+  times.measure += now() - t;
+  if (written.error || !report.deviation || !(report.deviation.max <= tol)) {
+    report.keptReason = written.error
+      ? `internal: written path data did not re-read (${written.error.message})`
+      : report.deviation
+        ? `measured deviation ${report.deviation.max.toPrecision(3)} mm is over the tolerance`
+        : 'nothing to measure';
+    return { report, edits: null };
+  }
+  report.kept = false;
+  return { report, edits: elementEdits(doc, el, d, opts) };
+}
+
+/** Lines a controller needs to follow the contour within the tolerance (vertex-subset polyline). */
+function straightMoves(c: Contour, tol: number): number {
+  const n = c.xy.length >> 1;
+  if (n < 2) return 0;
+  const order = new Int32Array(c.closed ? n + 1 : n);
+  for (let i = 0; i < n; i++) order[i] = i;
+  return thinWithin(c.xy, order, tol, null).length - 1;
+}
+
+function elementEdits(doc: SvgDocument, el: GeometryElement, d: string, opts: Options): Edit[] {
+  const set: Record<string, string> = { d };
+  const remove: string[] = el.name === 'path' ? [] : SHAPE_ATTRS[el.name].filter((a) => a in el.attrs);
+  if (opts.bakeTransforms) {
+    // Coordinates are now root user units: undo the ancestors' transforms instead of applying the element's own.
+    const own = parseTransform(el.attrs.transform ?? '').matrix;
+    const ownInv = invert(new Float64Array(6), own) ?? own;
+    const ancestors = multiply(new Float64Array(6), el.ctm, ownInv);
+    const undo = invert(new Float64Array(6), ancestors);
+    if (undo && !isIdentity(undo)) set.transform = `matrix(${Array.from(undo, (v) => +v.toPrecision(12)).join(' ')})`;
+    else if ('transform' in el.attrs) remove.push('transform');
+  }
+  return editStartTag(doc.text, el, { rename: el.name === 'path' ? undefined : 'path', set, remove });
+}
+
+function isIdentity(m: Matrix): boolean {
+  const e = 1e-12;
+  return Math.abs(m[0] - 1) < e && Math.abs(m[1]) < e && Math.abs(m[2]) < e && Math.abs(m[3] - 1) < e && Math.abs(m[4]) < e && Math.abs(m[5]) < e;
+}
+
+function summarise(
+  elements: ElementReport[], tol: number, input: string, output: string, warnings: string[], file: string | null, timeMs: number,
+): FileReport {
+  let commandsBefore = 0, arcs = 0, lines = 0, maxDeviation = 0, rewritten = 0;
+  for (const e of elements) {
+    for (const k in e.commandsBefore) commandsBefore += e.commandsBefore[k];
+    if (!e.kept) {
+      rewritten++;
+      arcs += e.segmentsAfter.arcs;
+      lines += e.segmentsAfter.lines;
+      if (e.deviation && e.deviation.max > maxDeviation) maxDeviation = e.deviation.max;
+    }
+  }
+  const withinTolerance = elements.every((e) => !e.keptReason?.startsWith('measured deviation'));
+  return {
+    tool: 'arcspline', version: VERSION, file, toleranceMm: tol,
+    bytesIn: Buffer.byteLength(input), bytesOut: Buffer.byteLength(output), timeMs,
+    elements,
+    totals: { elements: elements.length, rewritten, kept: elements.length - rewritten, commandsBefore, segmentsAfter: { arcs, lines }, maxDeviation, withinTolerance },
+    warnings,
+  };
+}
