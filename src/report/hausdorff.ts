@@ -19,6 +19,11 @@
  * Intervals whose bound is not within `resolution` of what was observed are
  * bisected. For exact curves A, B sampled with chord bounds eA, eB (see
  * sample.ts): H(A→B) ≤ M + eA + eB.
+ *
+ * Candidates: one distance-bounded flatbush query around an anchor vertex
+ * serves every following segment of `a` that stays within a few mean segment
+ * lengths of `b` of it (see `gather`), so the work per segment is the number of
+ * segments of `b` at about the local distance, not the size of `b`.
  */
 import Flatbush from 'flatbush';
 
@@ -27,6 +32,8 @@ export interface SegmentIndex {
   tree: Flatbush;
   /** ax, ay, bx, by per segment, in index item order. */
   segs: Float64Array;
+  /** mm, mean segment length (sets how far one candidate query is reused). */
+  meanLength: number;
 }
 
 /** Result of one direction. */
@@ -70,7 +77,7 @@ export function buildSegmentIndex(polylines: Float64Array[]): SegmentIndex | nul
   if (count === 0) return null;
   const segs = new Float64Array(count * 4);
   const tree = new Flatbush(count);
-  let k = 0;
+  let k = 0, total = 0;
   for (const pl of polylines) {
     const n = pl.length >> 1;
     if (n === 0) continue;
@@ -79,15 +86,19 @@ export function buildSegmentIndex(polylines: Float64Array[]): SegmentIndex | nul
       const j = n === 1 ? 0 : i + 1;
       const ax = pl[2 * i], ay = pl[2 * i + 1], bx = pl[2 * j], by = pl[2 * j + 1];
       segs[k++] = ax; segs[k++] = ay; segs[k++] = bx; segs[k++] = by;
+      total += Math.hypot(bx - ax, by - ay);
       tree.add(Math.min(ax, bx), Math.min(ay, by), Math.max(ax, bx), Math.max(ay, by));
     }
   }
   tree.finish();
-  return { tree, segs };
+  return { tree, segs, meanLength: total / count };
 }
 
-/** Extra margin of a candidate query, in units of the needed radius, so that following segments can reuse it. */
-const MARGIN = 1;
+/**
+ * Radius, in mean segment lengths of `b`, within which one candidate query is reused.
+ * Larger means fewer tree walks but more candidates per distance evaluation.
+ */
+const ANCHOR_REACH = 8;
 
 /** Deepest bisection (2^-48 of a segment is far below double noise for our sizes). */
 const MAX_DEPTH = 48;
@@ -107,7 +118,10 @@ export function directedDistance(
   let pointCount = 0;
   for (const pl of a) pointCount += pl.length >> 1;
   if (pointCount === 0) return { max: 0, mean: 0, worstX: NaN, worstY: NaN, samples: 0 };
-  if (index === null) return { max: Infinity, mean: Infinity, worstX: a.find((pl) => pl.length > 0)![0], worstY: a.find((pl) => pl.length > 0)![1], samples: pointCount };
+  if (index === null) {
+    const first = a.find((pl) => pl.length > 0)!;
+    return { max: Infinity, mean: Infinity, worstX: first[0], worstY: first[1], samples: pointCount };
+  }
   const { tree, segs } = index;
 
   // Candidate segments of the current segment of `a`, copied flat (stride 4), and
@@ -141,22 +155,27 @@ export function directedDistance(
     return best;
   };
 
-  // The box last queried (its candidates are in `cand`).
-  let qx0 = Infinity, qy0 = Infinity, qx1 = -Infinity, qy1 = -Infinity;
   let max = -Infinity, worstX = NaN, worstY = NaN, sum = 0, samples = 0;
 
-  // Bound the distance on the interval x0→x1 (length len, end distances d0/d1 over the candidates).
-  const refine = (x0: number, y0: number, f0: number, d0: Float64Array, x1: number, y1: number, f1: number, d1: Float64Array, len: number, depth: number): void => {
+  // Upper bound of the distance to b on an interval with end distances d0/d1 over the candidates:
+  // the convexity bound, capped by the Lipschitz one (module header).
+  const bound = (d0: Float64Array, d1: Float64Array, f0: number, f1: number, len: number): number => {
     let convex = Infinity;
     for (let j = 0; j < m; j++) {
       const v = d0[j] > d1[j] ? d0[j] : d1[j];
       if (v < convex) convex = v;
     }
     const lip = (f0 + f1 + len) / 2;
-    const ub = convex < lip ? convex : lip;
-    const lo = f0 > f1 ? f0 : f1;
+    return convex < lip ? convex : lip;
+  };
+  const settled = (ub: number, f0: number, f1: number, len: number): boolean =>
+    ub - (f0 > f1 ? f0 : f1) <= resolution || len <= 2 * resolution;
+
+  // Bisect the interval x0→x1 until its bound is settled; raise `max` by what it finds.
+  const refine = (x0: number, y0: number, f0: number, d0: Float64Array, x1: number, y1: number, f1: number, d1: Float64Array, len: number, depth: number): void => {
+    const ub = bound(d0, d1, f0, f1, len);
     if (ub <= max) return; // cannot raise the maximum
-    if (ub - lo <= resolution || len <= 2 * resolution || depth >= MAX_DEPTH) {
+    if (settled(ub, f0, f1, len) || depth >= MAX_DEPTH) {
       max = ub;
       if (f0 >= f1) { worstX = x0; worstY = y0; } else { worstX = x1; worstY = y1; }
       return;
@@ -168,52 +187,62 @@ export function directedDistance(
     refine(xm, ym, fm, dm, x1, y1, f1, d1, len / 2, depth + 1);
   };
 
+  // The anchor: candidates in `cand` hold the nearest segment of b for every point within
+  // `anchorR` of (anchorX, anchorY). For such a point x, f(x) ≤ f(A) + R, and its nearest segment j
+  // has d_j(A) ≤ d_j(x) + R ≤ f(A) + 2R: so all segments whose box is within U + 2R of A
+  // (U ≥ f(A)) suffice, and flatbush's distance-bounded search returns exactly those.
+  let anchorX = NaN, anchorY = NaN, anchorR = -1;
+  const reach = ANCHOR_REACH * index.meanLength;
+  let fp = 0, fq = 0;
+  /**
+   * Make the candidates hold the nearest segment of b for every point of p→q; leave end
+   * distances in rows[0] (p) / rows[1] (q), fp and fq. `fpIn` bounds f(p) from above;
+   * `chained` says rows[1] holds p's distances (the previous segment's end).
+   */
+  const gather = (px: number, py: number, qx: number, qy: number, len: number, fpIn: number, chained: boolean): void => {
+    const r2 = anchorR * anchorR;
+    const inside = (px - anchorX) ** 2 + (py - anchorY) ** 2 <= r2 && (qx - anchorX) ** 2 + (qy - anchorY) ** 2 <= r2;
+    if (inside && chained) {
+      const t = rows[0]; // p's distances are the previous segment's end distances
+      rows[0] = rows[1];
+      rows[1] = t;
+      fp = fpIn;
+      fq = distances(row(1), qx, qy);
+      return;
+    }
+    if (!inside) {
+      anchorX = px;
+      anchorY = py;
+      anchorR = Math.max(reach, len);
+      m = 0;
+      for (const id of tree.neighbors(px, py, Infinity, (fpIn + 2 * anchorR) * (1 + 1e-12) + 1e-12)) collect(id);
+    }
+    fp = distances(row(0), px, py);
+    fq = distances(row(1), qx, qy);
+  };
+
   for (const pl of a) {
     const n = pl.length >> 1;
     if (n === 0) continue;
     let px = pl[0], py = pl[1];
-    // Any segment's distance is an upper bound of the distance to `b`; the nearest box gives a good one.
-    const near = tree.neighbors(px, py, 1)[0];
-    let fp = distPointSegment(px, py, segs[4 * near], segs[4 * near + 1], segs[4 * near + 2], segs[4 * near + 3]);
-    const closedRepeat = n > 1 && pl[2 * n - 2] === px && pl[2 * n - 1] === py;
+    // Any segment's distance bounds f(p) from above; the nearest box gives a good one.
+    const near = 4 * tree.neighbors(px, py, 1)[0];
+    fp = distPointSegment(px, py, segs[near], segs[near + 1], segs[near + 2], segs[near + 3]);
     if (n === 1) {
-      m = 0;
-      qx0 = Infinity; // the single-point query below replaces the cached candidates
-      const r = fp * (1 + 1e-12) + 1e-12;
-      tree.search(px - r, py - r, px + r, py + r, collect);
-      fp = distances(row(0), px, py);
+      gather(px, py, px, py, 0, fp, false);
       if (fp > max) { max = fp; worstX = px; worstY = py; }
       sum += fp;
       samples++;
       continue;
     }
+    const closedRepeat = pl[2 * n - 2] === px && pl[2 * n - 1] === py;
     for (let i = 1; i < n; i++) {
       const qx = pl[2 * i], qy = pl[2 * i + 1];
       const len = Math.hypot(qx - px, qy - py);
-      // Every point x of this segment has f(x) ≤ f(p) + len, so its nearest segment of b lies in this box.
-      const r = (fp + len) * (1 + 1e-12) + 1e-12;
-      const x0 = Math.min(px, qx) - r, y0 = Math.min(py, qy) - r, x1 = Math.max(px, qx) + r, y1 = Math.max(py, qy) + r;
-      // Reuse the last query while the needed box lies inside it; otherwise query a box with a margin
-      // of r so that the next few segments can reuse it too (fewer tree walks, a few more candidates).
-      let d0 = row(0), d1 = row(1);
-      if (x0 < qx0 || y0 < qy0 || x1 > qx1 || y1 > qy1) {
-        qx0 = x0 - r * MARGIN; qy0 = y0 - r * MARGIN; qx1 = x1 + r * MARGIN; qy1 = y1 + r * MARGIN;
-        m = 0;
-        tree.search(qx0, qy0, qx1, qy1, collect);
-        d0 = row(0);
-        d1 = row(1);
-        fp = distances(d0, px, py);
-      } else if (i > 1) {
-        // Same candidates as the previous segment: its end distances are this one's start distances.
-        rows[0] = d1;
-        rows[1] = d0;
-        d0 = rows[0];
-        d1 = rows[1];
-      } else fp = distances(d0, px, py);
-      const fq = distances(d1, qx, qy);
+      gather(px, py, qx, qy, len, fp, i > 1);
       if (i === 1) { sum += fp; samples++; }
       if (i < n - 1 || !closedRepeat) { sum += fq; samples++; }
-      refine(px, py, fp, d0, qx, qy, fq, d1, len, 0);
+      refine(px, py, fp, rows[0], qx, qy, fq, rows[1], len, 0);
       px = qx;
       py = qy;
       fp = fq;

@@ -25,6 +25,12 @@ function circle(r: number, n: number, phase = 0, cx = 0, cy = 0): Float64Array {
   return out;
 }
 
+/** v within [x − tol, x + tol]. */
+function expectCloseBound(v: number, x: number, tol: number): void {
+  expect(v).toBeGreaterThanOrEqual(x - tol);
+  expect(v).toBeLessThanOrEqual(x + tol);
+}
+
 describe('distPointSegment', () => {
   it('projects inside, clamps at the ends, treats a zero-length segment as a point', () => {
     expect(distPointSegment(5, 3, 0, 0, 10, 0)).toBe(3);
@@ -101,6 +107,48 @@ describe('directedDistance', () => {
       // worst spot is a vertex of a whose own distance is within the segment length of the maximum
       expect(Number.isFinite(d.worstX)).toBe(true);
     }
+  });
+
+  it('seeded random walks with many short segments (candidate reuse): bounded by brute force both ways', () => {
+    const rand = rng(777);
+    const walk = (n: number, x: number, y: number, step: number) => {
+      const v = new Float64Array(2 * n);
+      for (let i = 0; i < n; i++) { v[2 * i] = x; v[2 * i + 1] = y; x += (rand() - 0.5) * step; y += (rand() - 0.3) * step; }
+      return v;
+    };
+    const a = [walk(300, 0, 0, 0.2), walk(50, 3, 1, 0.5)], b = [walk(3000, 0.1, 0, 0.03), walk(20, 5, 5, 1)];
+    const res = 1e-5;
+    const d = directedDistance(a, b, buildSegmentIndex(b), res);
+    let dense = 0, step = 0, sum = 0, count = 0;
+    for (const pa of a) {
+      for (let i = 0; i + 3 < pa.length; i += 2) {
+        const len = Math.hypot(pa[i + 2] - pa[i], pa[i + 3] - pa[i + 1]);
+        const k = Math.max(1, Math.ceil(len / 0.01));
+        step = Math.max(step, len / k);
+        for (let j = 0; j <= k; j++) {
+          const x = pa[i] + ((pa[i + 2] - pa[i]) * j) / k, y = pa[i + 1] + ((pa[i + 3] - pa[i + 1]) * j) / k;
+          let best = Infinity;
+          for (const pb of b) for (let m = 0; m + 3 < pb.length; m += 2) best = Math.min(best, distPointSegment(x, y, pb[m], pb[m + 1], pb[m + 2], pb[m + 3]));
+          dense = Math.max(dense, best);
+          if (j === 0) { sum += best; count++; }
+          if (j === k && i + 4 === pa.length) { sum += best; count++; } // last vertex (walks are open)
+        }
+      }
+    }
+    expect(d.max).toBeGreaterThanOrEqual(dense - 1e-12);
+    expect(d.max).toBeLessThanOrEqual(dense + step / 2 + res);
+    expect(d.samples).toBe(count);
+    expect(d.mean).toBeCloseTo(sum / count, 10); // vertex distances are exact, not just bounded
+  });
+
+  it('far-apart shapes stay fast: circles 5 mm apart, 1e5 points', () => {
+    const a = [circle(100, 100_000)], b = [circle(105, 50_000, 1e-6)];
+    const t0 = performance.now();
+    const d = directedDistance(a, b, buildSegmentIndex(b), 1e-5);
+    const ms = performance.now() - t0;
+    console.log(`directedDistance far apart, 1e5 → 5e4 points: ${ms.toFixed(0)} ms`);
+    expectCloseBound(d.max, 5, 105 * (1 - Math.cos(Math.PI / 50_000)) + 1e-5);
+    expect(ms).toBeLessThan(10000); // was minutes with plain box queries (~0.4 s idle now)
   });
 
   it('empty sides: nothing to measure from → 0; nothing to measure to → Infinity', () => {
