@@ -59,6 +59,15 @@ describe('measureDeviation', () => {
     expectBetween(d.max, 0.3, 0.3 + SLACK * tol);
   });
 
+  it('a circle r=10 under scale(2,1) against the ellipse A20 10 written untransformed: 0 (REFERENCES.md §5.2 T10)', () => {
+    const tol = 0.01;
+    const ellipse = path().M(20, 0).A(20, 10, 0, 0, 1, -20, 0).A(20, 10, 0, 0, 1, 20, 0).Z().data();
+    const d = measureDeviation(arcCircle(10), Float64Array.of(2, 0, 0, 1, 0, 0), ellipse, ID, tol)!;
+    expectBetween(d.max, 0, SLACK * tol);
+    // and the same circle untransformed is a full 10 mm from the ellipse's far ends
+    expectBetween(measureDeviation(arcCircle(10), ID, ellipse, ID, tol)!.resultToOriginal, 10, 10 + SLACK * tol);
+  });
+
   it('a line against a parallel line: their distance; worst spot mapped back to user units', () => {
     const tol = 0.01;
     const orig = path().M(0, 0).L(10, 0).data();

@@ -168,6 +168,20 @@ describe('samplePath', () => {
     expect(s.errorBound).toBe(0);
   });
 
+  it('an arc with coincident endpoints draws nothing; a zero radius draws a line (F.6.2, F.6.6 step 1)', () => {
+    expect(samplePath(path().M(5, 5).A(10, 10, 0, 1, 1, 5, 5).data(), ID, 1).polylines.length).toBe(0);
+    const s = samplePath(path().M(0, 0).A(0, 5, 0, 0, 1, 10, 0).data(), ID, 5);
+    expect(Array.from(s.polylines[0])).toEqual([0, 0, 5, 0, 10, 0]);
+  });
+
+  it('does not modify its inputs', () => {
+    const p = path().M(0, 0).C(1, 2, 3, 4, 5, 6).A(3, 2, 10, 0, 1, 9, 9).data();
+    const m = Float64Array.of(2, 0.5, -0.3, 1, 4, 5);
+    const ops = p.ops.slice(), args = p.args.slice(), mm = m.slice();
+    samplePath(p, m, 0.1);
+    expect(p.ops).toEqual(ops); expect(p.args).toEqual(args); expect(m).toEqual(mm);
+  });
+
   it('matches svg-path-properties getPointAtLength on paths with every command (identity)', () => {
     // svg-path-properties (npm, general-purpose path measuring library) as the outside reference.
     const paths = [
