@@ -1,0 +1,176 @@
+/**
+ * The command line: flags declared with commander and mapped one to one onto
+ * the library's options object (src/options.ts). The CLI adds no defaults of
+ * its own: a flag that is not given leaves its option out, so the library's
+ * DEFAULT_OPTIONS apply, and `--help` prints those defaults.
+ */
+import { Command, InvalidArgumentError, Option } from 'commander';
+import { DEFAULT_OPTIONS, OPTION_DOCS, OptionError, parseToleranceText, resolveOptions, type Options } from '../options.js';
+import { VERSION } from '../version.js';
+
+/** The flag that sets each library option (every option has exactly one). */
+export const OPTION_FLAGS: Readonly<Record<keyof Options, string>> = Object.freeze({
+  tolerance: '-t, --tolerance <length>',
+  cornerAngle: '--corner-angle <deg>',
+  bakeTransforms: '--bake-transforms',
+  shapesAsPaths: '--shapes-as-paths',
+  assumedMmPerUnit: '--unitless-size <length>',
+  digits: '--digits <n>',
+});
+
+/** Commander's attribute name for each option's flag (the camel-cased long flag). */
+const ATTRIBUTE: Readonly<Record<keyof Options, string>> = Object.freeze({
+  tolerance: 'tolerance',
+  cornerAngle: 'cornerAngle',
+  bakeTransforms: 'bakeTransforms',
+  shapesAsPaths: 'shapesAsPaths',
+  assumedMmPerUnit: 'unitlessSize',
+  digits: 'digits',
+});
+
+/** Flags of the command itself (not library options), as parsed. */
+export interface CliFlags {
+  /** `-o` value: a path, `-` for standard output, or undefined. */
+  output?: string;
+  /** `--report` value: a path, `-` for standard output, or undefined. */
+  report?: string;
+  inPlace: boolean;
+  /** False with `--no-backup`. */
+  backup: boolean;
+  quiet: boolean;
+  debug: boolean;
+}
+
+/** Everything the command line says: inputs, command flags and the library's options. */
+export interface ParsedArgs {
+  inputs: string[];
+  flags: CliFlags;
+  /** Only the options the user gave; the library fills in the rest. */
+  options: Partial<Options>;
+}
+
+/** Where commander writes help, version and its own error messages. */
+export interface ProgramOutput {
+  writeOut(text: string): void;
+  writeErr(text: string): void;
+  /** Help text width in columns. */
+  width: number;
+}
+
+const DECIMAL = /^\s*[+-]?(?:\d+\.?\d*|\.\d+)(?:e[+-]?\d+)?\s*$/i;
+
+/** Validate one option with the library's own rules, so the CLI and the library refuse the same values. */
+function validated<K extends keyof Options>(key: K, value: Options[K]): Options[K] {
+  try {
+    resolveOptions({ [key]: value } as Partial<Options>);
+  } catch (e) {
+    if (e instanceof OptionError) throw new InvalidArgumentError(e.message);
+    throw e;
+  }
+  return value;
+}
+
+function parseTolerance(text: string): number {
+  try {
+    return validated('tolerance', parseToleranceText(text));
+  } catch (e) {
+    if (e instanceof OptionError) throw new InvalidArgumentError(e.message);
+    throw e;
+  }
+}
+
+function parseUnitlessSize(text: string): number {
+  let mm: number;
+  try {
+    mm = parseToleranceText(text);
+  } catch {
+    throw new InvalidArgumentError(`"${text}" is not a positive length; use e.g. 1px, 0.5mm or a bare number in mm`);
+  }
+  return validated('assumedMmPerUnit', mm);
+}
+
+function parseNumber(text: string, what: string): number {
+  if (!DECIMAL.test(text)) throw new InvalidArgumentError(`"${text}" is not a number of ${what}`);
+  return Number(text);
+}
+
+const PARSERS: Readonly<Partial<Record<keyof Options, (text: string) => unknown>>> = Object.freeze({
+  tolerance: parseTolerance,
+  cornerAngle: (t: string) => validated('cornerAngle', parseNumber(t, 'degrees')),
+  assumedMmPerUnit: parseUnitlessSize,
+  digits: (t: string) => validated('digits', parseNumber(t, 'decimal places')),
+});
+
+/** A default as `--help` shows it, from DEFAULT_OPTIONS; an empty string when the meaning says it already. */
+export function describeDefault(key: keyof Options): string {
+  const v = DEFAULT_OPTIONS[key];
+  const unit = OPTION_DOCS[key].unit;
+  if (v === null) return '';
+  if (typeof v === 'boolean') return v ? 'on' : 'off';
+  return `${+v.toPrecision(7)} ${unit}`;
+}
+
+function optionHelp(key: keyof Options): string {
+  const doc = OPTION_DOCS[key];
+  const def = describeDefault(key);
+  let extra = '';
+  if (key === 'tolerance') extra = '; mm, cm, in, pt, pc, px or Q, a bare number is mm';
+  if (key === 'assumedMmPerUnit') extra = '; a length, a bare number is mm';
+  return `${doc.meaning}${extra}${def ? ` (default: ${def})` : ''}`;
+}
+
+/** The commander program for one run (commander keeps parsed values on the instance, so build one per run). */
+export function buildProgram(out: ProgramOutput, afterHelp: string): Command {
+  const program = new Command('arcspline')
+    .description('Refit the curves of an SVG cut or plot file with the fewest circular arcs and lines within a tolerance, and report the measured deviation.')
+    .argument('<input...>', 'SVG file to refit, or - for standard input (several files only with --in-place)')
+    .option('-o, --output <file>', 'write the refitted SVG here; - is standard output (see "Output" below)')
+    .option('--report <file>', 'write the deviation report as JSON here; - is standard output');
+  for (const key of Object.keys(OPTION_FLAGS) as (keyof Options)[]) {
+    const opt = new Option(OPTION_FLAGS[key], optionHelp(key));
+    const parse = PARSERS[key];
+    if (parse) opt.argParser(parse);
+    program.addOption(opt);
+  }
+  program
+    .option('--in-place', 'rewrite each input file itself, keeping a backup FILE.bak')
+    .option('--no-backup', 'with --in-place, keep no FILE.bak')
+    .option('-q, --quiet', 'print no summary line (warnings and errors still go to standard error)')
+    .option('--debug', 'print the stack of an internal error')
+    .version(VERSION, '-V, --version', 'print the version')
+    .helpOption('-h, --help', 'show this help')
+    .configureHelp({ sortOptions: false, helpWidth: out.width })
+    .configureOutput({
+      writeOut: out.writeOut,
+      writeErr: out.writeErr,
+      // One line, in the same form as every other arcspline error.
+      outputError: (text, write) => write(`arcspline: ${text.replace(/^error: /, '').trimEnd()} (arcspline --help shows the usage)\n`),
+      getOutHasColors: () => false,
+      getErrHasColors: () => false,
+    })
+    .addHelpText('after', afterHelp)
+    .exitOverride();
+  return program;
+}
+
+/** Read the parsed values back from a program after `parse()`. */
+export function parsedArgs(program: Command): ParsedArgs {
+  const o = program.opts<Record<string, unknown>>();
+  const options: Partial<Options> = {};
+  for (const key of Object.keys(ATTRIBUTE) as (keyof Options)[]) {
+    const v = o[ATTRIBUTE[key]];
+    if (v !== undefined) (options as Record<string, unknown>)[key] = v;
+  }
+  return {
+    inputs: program.args.slice(),
+    flags: {
+      output: o.output as string | undefined,
+      report: o.report as string | undefined,
+      inPlace: o.inPlace === true,
+      backup: o.backup !== false,
+      quiet: o.quiet === true,
+      debug: o.debug === true,
+    },
+    options,
+  };
+}

@@ -1,0 +1,60 @@
+/**
+ * The text `--help` prints after commander's option list: output rules,
+ * tolerance advice, examples, exit codes and the safety caution.
+ */
+import { DEFAULT_OPTIONS } from '../options.js';
+import { EXIT_CODE_DOCS } from './exitCodes.js';
+
+/** The safety caution, printed by `--help` word for word. */
+export const SAFETY_CAUTION =
+  "arcspline changes geometry. Check the output (for example with the report and a preview) before cutting; follow your machine's manual and local safety rules.";
+
+/** Wrap a paragraph to `width` columns with a hanging indent. */
+function wrap(text: string, width: number, indent = '  '): string {
+  const words = text.split(/\s+/).filter(Boolean);
+  const lines: string[] = [];
+  let line = indent;
+  for (const w of words) {
+    if (line.length > indent.length && line.length + 1 + w.length > width) {
+      lines.push(line);
+      line = indent + w;
+    } else {
+      line += (line.length > indent.length ? ' ' : '') + w;
+    }
+  }
+  if (line.length > indent.length) lines.push(line);
+  return lines.join('\n');
+}
+
+/** The help text after the option list, wrapped to `width` columns (at least 40). */
+export function afterHelpText(width: number): string {
+  const w = Math.max(40, width);
+  const p = (t: string): string => wrap(t, w);
+  const tol = DEFAULT_OPTIONS.tolerance;
+  // Hanging indent: the meaning lines up after the code.
+  const codes = EXIT_CODE_DOCS.map(([code, what]) => `  ${code}  ${wrap(what, w, '     ').trimStart()}`).join('\n');
+  return [
+    '',
+    'Output:',
+    p('-o FILE writes the refitted SVG to FILE; -o - writes it to standard output. Without -o the SVG goes to standard output when that is not a terminal; on a terminal arcspline refuses and asks for -o.'),
+    p('Files are written atomically (a temporary file in the same directory, then renamed), so an error never leaves a partial or new output file. An existing output file is replaced, but never the input: -o naming the input is refused; use --in-place, which keeps the original as FILE.bak (refused when FILE.bak exists) unless --no-backup. An input that needs no change is not rewritten in place.'),
+    p('--report FILE writes the report (JSON) with the measured deviation of every element; --report - writes it to standard output, and the SVG must then go to a file with -o.'),
+    p('A summary line per file and any warnings go to standard error.'),
+    '',
+    'Tolerance:',
+    p(`Lengths take mm, cm, in, pt, pc, px or Q (CSS absolute units, 1in = 25.4mm = 96px); a bare number is mm. The default is ${tol} mm. Common practice for laser work is a tolerance well below the kerf, about 0.1-0.2 mm; use a smaller one for tight-fitting joints. Elements whose measured deviation would exceed the tolerance are kept unchanged.`),
+    '',
+    'Examples:',
+    '  arcspline part.svg -o part.fit.svg --tolerance 0.05mm --report part.report.json',
+    '  arcspline - < part.svg > part.fit.svg',
+    '  arcspline part.svg -o part.fit.svg --report - > part.report.json',
+    '  arcspline --in-place --tolerance 0.002in a.svg b.svg',
+    '',
+    'Exit codes:',
+    codes,
+    '',
+    'Safety:',
+    p(SAFETY_CAUTION),
+    '',
+  ].join('\n');
+}

@@ -1,0 +1,91 @@
+/**
+ * The human-readable lines the CLI prints on standard error for each file: one
+ * summary line (segments, measured deviation, bytes) and one line per warning
+ * or per element kept because the tolerance could not be met.
+ */
+import type { ElementReport, FileReport } from '../report/types.js';
+
+/** Colouring functions; identity when colour is off. */
+export interface Paint {
+  bold(s: string): string;
+  green(s: string): string;
+  yellow(s: string): string;
+  red(s: string): string;
+}
+
+const id = (s: string): string => s;
+/** No colour. */
+export const PLAIN: Paint = Object.freeze({ bold: id, green: id, yellow: id, red: id });
+const sgr = (on: number, off: number) => (s: string): string => `\x1b[${on}m${s}\x1b[${off}m`;
+/** ANSI SGR colours (ECMA-48). */
+export const ANSI: Paint = Object.freeze({ bold: sgr(1, 22), green: sgr(32, 39), yellow: sgr(33, 39), red: sgr(31, 39) });
+
+/**
+ * Colour only on a terminal and when NO_COLOR is unset or empty (the NO_COLOR
+ * convention, no-color.org: common practice).
+ */
+export function choosePaint(isTTY: boolean, env: Record<string, string | undefined>): Paint {
+  return isTTY && !env.NO_COLOR ? ANSI : PLAIN;
+}
+
+/** Byte count in SI units: 950 B, 32.5 kB, 1.2 MB (1 kB = 1000 B). */
+export function formatBytes(n: number): string {
+  if (n < 1000) return `${n} B`;
+  if (n < 1e6) return `${(n / 1e3).toFixed(1)} kB`;
+  return `${(n / 1e6).toFixed(1)} MB`;
+}
+
+/** A length in mm for reading: 2 significant digits, no trailing zeros beyond them. */
+export function formatMm(v: number): string {
+  return `${+v.toPrecision(2)} mm`;
+}
+
+/** A tolerance as given (up to 6 significant digits, trailing zeros dropped), in mm. */
+export function formatTolerance(v: number): string {
+  return `${+v.toPrecision(6)} mm`;
+}
+
+/** `<path id="x"> (element 4)`: how a line names an element. */
+export function elementLabel(e: ElementReport): string {
+  return `<${e.name}${e.id ? ` id="${e.id}"` : ''}> (element ${e.index})`;
+}
+
+const plural = (n: number, one: string, many = `${one}s`): string => `${n} ${n === 1 ? one : many}`;
+
+/** Elements kept unchanged because their measured deviation is over the tolerance. */
+export function overTolerance(report: FileReport): ElementReport[] {
+  return report.elements.filter((e) => e.kept && e.deviation !== null && e.deviation.max > report.toleranceMm);
+}
+
+/**
+ * One line for one file, e.g. `bracket.svg: 1893 commands → 48 segments
+ * (40 arcs, 8 lines) in 5 of 7 elements, max deviation 0.086 mm ≤ 0.1 mm,
+ * 32.5 kB → 2.0 kB`.
+ */
+export function summaryLine(name: string, report: FileReport, paint: Paint = PLAIN): string {
+  const t = report.totals;
+  const bytes = `${formatBytes(report.bytesIn)} → ${formatBytes(report.bytesOut)}`;
+  const head = `${paint.bold(name)}:`;
+  if (t.elements === 0) return `${head} no paths or shapes to refit, ${bytes}`;
+  const over = overTolerance(report).length;
+  const overText = over > 0 ? paint.red(`; ${plural(over, 'element')} over the tolerance kept unchanged`) : '';
+  if (t.rewritten === 0) return `${head} nothing refitted (${plural(t.elements, 'element')} kept as written), ${bytes}${overText}`;
+  let commands = 0;
+  for (const e of report.elements) if (!e.kept) for (const k in e.commandsBefore) commands += e.commandsBefore[k];
+  const { arcs, lines } = t.segmentsAfter;
+  const dev = `max deviation ${formatMm(t.maxDeviation)} ≤ ${formatTolerance(report.toleranceMm)}`;
+  return (
+    `${head} ${plural(commands, 'command')} → ${plural(arcs + lines, 'segment')} (${plural(arcs, 'arc')}, ${plural(lines, 'line')})` +
+    ` in ${t.rewritten} of ${plural(t.elements, 'element')}, ${paint.green(dev)}, ${bytes}${overText}`
+  );
+}
+
+/** One line per warning and per element kept over the tolerance, each prefixed by the file name. */
+export function problemLines(name: string, report: FileReport, paint: Paint = PLAIN): string[] {
+  const out: string[] = [];
+  for (const w of report.warnings) out.push(`${name}: ${paint.yellow('warning:')} ${w.replace(/\s*[\r\n]+\s*/g, ' ')}`);
+  for (const e of overTolerance(report)) {
+    out.push(`${name}: ${paint.red('kept unchanged:')} ${elementLabel(e)}: ${e.keptReason ?? 'over the tolerance'}`);
+  }
+  return out;
+}
