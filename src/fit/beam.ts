@@ -14,7 +14,6 @@
  */
 import { makePiece, type Piece } from './piece.js';
 import { biarcClosure, TANGENT_EPS } from './closure.js';
-import { openSeeds, seamSeeds } from './seeds.js';
 
 interface Node {
   a: number;
@@ -48,6 +47,18 @@ const MAX_FAILS = 3;
 /** Candidates kept per knot vertex (different tangents). */
 const PER_KNOT = 2;
 
+/** How a search must end. */
+export type SearchEnd =
+  /** At the last vertex, with any tangent (an open end or a corner). */
+  | { kind: 'point' }
+  /** At the last vertex (the seam, = the start) with the start tangent of its own seed. */
+  | { kind: 'seam' }
+  /**
+   * Tangent to the straight run that follows: the line through (px, py) with unit
+   * direction (dx, dy), touching it at a parameter in [tMin, tMax] (the run's extent).
+   */
+  | { kind: 'line'; px: number; py: number; dx: number; dy: number; tMin: number; tMax: number };
+
 export interface SearchParams {
   pts: Float64Array;
   /** Index of the start vertex and the last vertex. */
@@ -56,8 +67,9 @@ export interface SearchParams {
   /** Start point (the start vertex, or a point within tol of it). */
   qx: number;
   qy: number;
-  /** pts[last] is pts[start] again and the spline must close with the seam's tangent. */
-  closed: boolean;
+  /** Start tangents to try (unit vectors). */
+  seeds: number[][];
+  end: SearchEnd;
   tol: number;
   width: number;
 }
@@ -90,7 +102,7 @@ function expand(n: Node, p: SearchParams, onTerminal: (t: Node) => void): void {
   for (let b = n.a + 1; b <= last; b++) {
     const ex = pts[2 * b], ey = pts[2 * b + 1];
     let piece = makePiece(pts, n.a, b, n.bp, n.bq, n.br, n.qx, n.qy, ex, ey, tol);
-    if (piece && p.closed && b === last) {
+    if (piece && b === last && p.end.kind !== 'point') {
       const dot = piece.tx * n.t0x + piece.ty * n.t0y, cr = piece.tx * n.t0y - piece.ty * n.t0x;
       if (!(dot > 0 && Math.abs(cr) <= TANGENT_EPS)) piece = null;
     }
@@ -115,53 +127,60 @@ function expand(n: Node, p: SearchParams, onTerminal: (t: Node) => void): void {
         lineAlive = false;
       }
     }
-    if (b + 1 < last) fillet(n, b, p, children);
     if (fails > MAX_FAILS && !lineAlive) break;
   }
   let reach = n.a;
   for (const c of children) if (c.a > reach) reach = c.a;
   n.children = children;
   n.reach = reach;
-  // A biarc closes at most about two pieces' reach: only try it near the end.
-  if (p.closed && last - n.a <= 3 * (reach - n.a) + 4) {
-    const pair = biarcClosure(pts, n.a, last, n.bp, n.bq, n.br, n.qx, n.qy, n.tx, n.ty, n.t0x, n.t0y, tol);
-    if (pair) onTerminal(childNode(n, pair[0], pair[1], last, p));
-  }
-  for (const c of children) if (c.a === last) onTerminal(c);
+  // Closing moves (a biarc, or a fillet onto the next straight run) reach at most
+  // about two pieces ahead: only try them near the end.
+  if (p.end.kind !== 'point' && last - n.a <= 3 * (reach - n.a) + 4) closingMoves(n, p, onTerminal);
+  if (p.end.kind !== 'line') for (const c of children) if (c.a === last) onTerminal(c);
 }
 
-/** Edges at least this many tolerances long are straight runs worth meeting exactly. */
-const LONG_EDGE = 8;
-
-/**
- * The arc from the node's knot, continuing its tangent, that ends exactly
- * tangent to the long edge b → b+1 and on it (a fillet), so that the straight
- * run after it can be one line. The child stands for vertices up to b; the next
- * piece starts on the edge.
- */
-function fillet(n: Node, b: number, p: SearchParams, children: Node[]): void {
-  const pts = p.pts;
-  const bx = pts[2 * b], by = pts[2 * b + 1];
-  let dx = pts[2 * b + 2] - bx, dy = pts[2 * b + 3] - by;
-  const len = Math.hypot(dx, dy);
-  if (!(len >= LONG_EDGE * p.tol)) return;
-  dx /= len;
-  dy /= len;
-  const cr = n.tx * dy - n.ty * dx;
-  if (Math.abs(cr) < 1e-9) return; // parallel: a line child covers it
-  const sg = cr > 0 ? 1 : -1;
-  // Unit normals towards the centre at the start (of T) and at the end (of D).
-  const nx = -sg * n.ty, ny = sg * n.tx, mx = -sg * dy, my = sg * dx;
-  const ux = nx - mx, uy = ny - my;
-  const den = ux * dy - uy * dx;
-  if (den === 0) return;
-  const r = ((bx - n.qx) * dy - (by - n.qy) * dx) / den;
-  if (!(r > 0) || !Number.isFinite(r)) return;
-  const ex = n.qx + r * ux, ey = n.qy + r * uy;
-  const t = (ex - bx) * dx + (ey - by) * dy;
-  if (t < 0 || t >= len) return;
-  const piece = makePiece(pts, n.a, b, n.bp, n.bq, n.br, n.qx, n.qy, ex, ey, p.tol);
-  if (piece) children.push(childNode(n, piece, null, b, p, b + 1));
+/** Terminal moves for a seam or a following straight run. */
+function closingMoves(n: Node, p: SearchParams, onTerminal: (t: Node) => void): void {
+  const { pts, last, tol } = p;
+  const end = p.end;
+  if (end.kind === 'seam') {
+    const pair = biarcClosure(pts, n.a, last, n.bp, n.bq, n.br, n.qx, n.qy, n.tx, n.ty, pts[2 * last], pts[2 * last + 1], n.t0x, n.t0y, tol);
+    if (pair) onTerminal(childNode(n, pair[0], pair[1], last, p));
+    return;
+  }
+  if (end.kind !== 'line') return;
+  // The fillet: the arc continuing the node's tangent that touches the run's line.
+  const { px, py, dx, dy } = end;
+  const cr = n.tx * dy - n.ty * dx, dot = n.tx * dx + n.ty * dy;
+  if (Math.abs(cr) > 1e-12 || dot < 0) {
+    // Turn towards the run; for a U-turn (antiparallel tangents) towards the side the run lies on.
+    const side = (px - n.qx) * -n.ty + (py - n.qy) * n.tx;
+    const sg = Math.abs(cr) > 1e-12 ? (cr > 0 ? 1 : -1) : side > 0 ? 1 : -1;
+    // Unit normals towards the centre at the start (of T) and at the end (of D).
+    const ux = -sg * n.ty + sg * dy, uy = sg * n.tx - sg * dx;
+    const den = ux * dy - uy * dx;
+    const r = den !== 0 ? ((px - n.qx) * dy - (py - n.qy) * dx) / den : NaN;
+    if (r > 0 && Number.isFinite(r)) {
+      const ex = n.qx + r * ux, ey = n.qy + r * uy;
+      const t = (ex - px) * dx + (ey - py) * dy;
+      if (t >= end.tMin && t <= end.tMax) {
+        // The run's first vertex is covered by the arc when the touch point lies beyond it.
+        const tl = (pts[2 * last] - px) * dx + (pts[2 * last + 1] - py) * dy;
+        const upTo = t >= tl ? last : last - 1;
+        const piece = upTo >= n.a ? makePiece(pts, n.a, upTo, n.bp, n.bq, n.br, n.qx, n.qy, ex, ey, tol) : null;
+        if (piece) onTerminal(childNode(n, piece, null, last, p));
+      }
+    }
+  } else {
+    // Already running along the line: done if on it.
+    const off = Math.abs((n.qx - px) * dy - (n.qy - py) * dx);
+    if (off <= 1e-9 * tol && n.tx * dx + n.ty * dy > 0) onTerminal({ ...n, level: n.level, parent: n.parent });
+  }
+  // Or a biarc onto the run's first vertex (projected onto the run) with the run's direction.
+  const tl = (pts[2 * last] - px) * dx + (pts[2 * last + 1] - py) * dy;
+  const fx = px + tl * dx, fy = py + tl * dy;
+  const pair = biarcClosure(pts, n.a, last, n.bp, n.bq, n.br, n.qx, n.qy, n.tx, n.ty, fx, fy, dx, dy, tol);
+  if (pair) onTerminal(childNode(n, pair[0], pair[1], last, p));
 }
 
 function collect(end: Node): Piece[] {
@@ -175,7 +194,7 @@ function collect(end: Node): Piece[] {
 
 /** Search the fewest pieces from the start to the last vertex. */
 export function searchSpline(p: SearchParams): SearchResult {
-  const seeds = p.closed ? seamSeeds(p.pts, p.last) : openSeeds(p.pts, p.start, p.last, p.qx, p.qy);
+  const seeds = p.seeds;
   let best: Node | null = null;
   let farthest: Node | null = null;
   const onTerminal = (t: Node): void => {

@@ -12,15 +12,15 @@ export const TANGENT_EPS = 1e-7;
 
 /**
  * Biarc from knot (qx, qy) with tangent (tx, ty) and motor bivector (bp, bq, br),
- * standing for vertices a..last, to pts[last] arriving with tangent (t0x, t0y).
+ * standing for vertices a..last, to (ex, ey) (at or within tol of pts[last])
+ * arriving with tangent (t0x, t0y).
  */
 export function biarcClosure(
   pts: Float64Array, a: number, last: number,
   bp: number, bq: number, br: number,
   qx: number, qy: number, tx: number, ty: number,
-  t0x: number, t0y: number, tol: number,
+  ex: number, ey: number, t0x: number, t0y: number, tol: number,
 ): [Piece, Piece] | null {
-  const ex = pts[2 * last], ey = pts[2 * last + 1];
   const vx = ex - qx, vy = ey - qy;
   const sx = tx + t0x, sy = ty + t0y;
   const tt = sx * sx + sy * sy, vt = vx * sx + vy * sy, vv = vx * vx + vy * vy;

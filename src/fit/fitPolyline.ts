@@ -10,10 +10,10 @@
  */
 import type { Segment } from './segment.js';
 import { thinWithin } from './prefilter.js';
-import { findCorners, sharpestVertex } from './corners.js';
-import { searchSpline } from './beam.js';
-import { makePiece, type Piece } from './piece.js';
-import { mergeNeighbours, sameCarrier, straightenFlatArcs } from './merge.js';
+import { findCorners } from './corners.js';
+import type { Piece } from './piece.js';
+import { findRuns } from './runs.js';
+import { fitStretches } from './stretches.js';
 
 export interface FitOptions {
   /** Largest allowed two-sided distance between input and fit (same units as xy, normally mm). */
@@ -101,43 +101,15 @@ export function fitPolyline(xy: Float64Array, opts: FitOptions): FitResult {
   });
   const cornersC = [...cornerSet].sort((a, b) => a - b);
 
-  // 4. Pieces between corners (or one seam piece for a smooth closed contour).
+  // 4. Straight runs, then the stretches between runs and corners.
+  const runs = findRuns(clean, m, coarseIdx, closed, tolFit);
   const extent = bboxDiagonal(cxy);
-  const maxRadius = Math.max(20 * extent, 1e4 * tol);
-  const out: Segment[] = [];
-  let breaks = 0;
-  const emit = (pieces: Piece[], map: (j: number) => number): void => {
-    for (const p of pieces) {
-      out.push(toSegment(p, map, ox, oy, orig, coarseIdx));
-    }
-  };
-  if (!closed || cornersC.length > 0) {
-    let bounds: number[];
-    if (!closed) bounds = [...new Set([0, ...cornersC, mc - 1])].sort((a, b) => a - b);
-    else bounds = [...cornersC, cornersC[0] + mc];
-    for (let q = 0; q + 1 < bounds.length; q++) {
-      const from = bounds[q], to = bounds[q + 1];
-      const pts = slice(cxy, mc, from, to);
-      const res = fitOpen(pts, to - from, tolFit, width, maxRadius);
-      breaks += res.breaks;
-      emit(res.pieces, (j) => (from + j) % mc);
-    }
-  } else {
-    const seam = sharpestVertex(cxy, true, 5 * tolFit);
-    let res = fitClosed(slice(cxy, mc, seam, seam + mc), mc, tolFit, width, maxRadius);
-    let shift = seam;
-    // Two pieces on one circle across the seam: move the seam to the first knot and search again.
-    if (res.pieces.length > 2 && sameCarrier(res.pieces[res.pieces.length - 1], res.pieces[0], tolFit)) {
-      const s2 = (seam + res.pieces[0].b) % mc;
-      const again = fitClosed(slice(cxy, mc, s2, s2 + mc), mc, tolFit, width, maxRadius);
-      if (again.pieces.length < res.pieces.length) {
-        res = again;
-        shift = s2;
-      }
-    }
-    breaks += res.breaks;
-    emit(res.pieces, (j) => (shift + j) % mc);
-  }
+  const fit = fitStretches({
+    cxy, mc, closed, corners: cornersC, runs, tol: tolFit, width,
+    maxRadius: Math.max(20 * extent, 1e4 * tol), scale: 5 * tolFit,
+  });
+  const out = fit.pieces.map((p) => toSegment(p, mc, ox, oy, orig, coarseIdx));
+  const breaks = fit.breaks;
   const cornersOut = cornersC.map((j) => orig[coarseIdx[j]]);
   return { segments: out, corners: cornersOut, breaks };
 }
@@ -153,65 +125,7 @@ function bboxDiagonal(xy: Float64Array): number {
   return Math.hypot(x1 - x0, y1 - y0);
 }
 
-/** Vertices from..to (indices modulo mc) as their own flat array. */
-function slice(cxy: Float64Array, mc: number, from: number, to: number): Float64Array {
-  const out = new Float64Array(2 * (to - from + 1));
-  for (let j = from; j <= to; j++) {
-    const k = j % mc;
-    out[2 * (j - from)] = cxy[2 * k];
-    out[2 * (j - from) + 1] = cxy[2 * k + 1];
-  }
-  return out;
-}
-
-interface PieceRun {
-  pieces: Piece[];
-  breaks: number;
-}
-
-/** An open run of vertices 0..last: free tangents at both ends. */
-function fitOpen(pts: Float64Array, last: number, tol: number, width: number, maxRadius: number): PieceRun {
-  const all: Piece[] = [];
-  let breaks = 0;
-  let start = 0, qx = pts[0], qy = pts[1];
-  for (;;) {
-    const res = searchSpline({ pts, start, last, qx, qy, closed: false, tol, width });
-    if (res.complete) {
-      all.push(...res.pieces);
-      break;
-    }
-    breaks++;
-    if (res.pieces.length > 0) {
-      all.push(...res.pieces);
-      const p = res.pieces[res.pieces.length - 1];
-      start = p.b;
-      qx = p.x1;
-      qy = p.y1;
-    } else {
-      // No piece at all from here: a straight step to the next vertex (always within tol of both).
-      const ex = pts[2 * start + 2], ey = pts[2 * start + 3];
-      const l = Math.hypot(ex - qx, ey - qy);
-      const p = makePiece(pts, start, start + 1, -(ex - qx) / l, -(ey - qy) / l, 0, qx, qy, ex, ey, tol);
-      if (p) all.push(p);
-      start++;
-      qx = ex;
-      qy = ey;
-    }
-  }
-  return { pieces: straightenFlatArcs(pts, mergeNeighbours(pts, all, tol), maxRadius, tol), breaks };
-}
-
-/** A closed run whose pts end with the seam vertex again: the spline must close smoothly there. */
-function fitClosed(pts: Float64Array, last: number, tol: number, width: number, maxRadius: number): PieceRun {
-  const res = searchSpline({ pts, start: 0, last, qx: pts[0], qy: pts[1], closed: true, tol, width });
-  if (!res.complete) {
-    const open = fitOpen(pts, last, tol, width, maxRadius);
-    return { pieces: open.pieces, breaks: open.breaks + 1 };
-  }
-  return { pieces: straightenFlatArcs(pts, mergeNeighbours(pts, res.pieces, tol), maxRadius, tol), breaks: 0 };
-}
-
-function toSegment(p: Piece, map: (j: number) => number, ox: number, oy: number, orig: Int32Array, coarseIdx: number[]): Segment {
+function toSegment(p: Piece, mc: number, ox: number, oy: number, orig: Int32Array, coarseIdx: number[]): Segment {
   const m = new Float64Array(4);
   m[0] = p.ms;
   // Move the motor back from the local frame: the centre (−q/r, p/r) shifts by (ox, oy).
@@ -221,6 +135,6 @@ function toSegment(p: Piece, map: (j: number) => number, ox: number, oy: number,
   return {
     kind: p.kind, motor: m,
     x0: p.x0 + ox, y0: p.y0 + oy, x1: p.x1 + ox, y1: p.y1 + oy,
-    i0: orig[coarseIdx[map(p.a)]], i1: orig[coarseIdx[map(p.b)]],
+    i0: orig[coarseIdx[p.a % mc]], i1: orig[coarseIdx[p.b % mc]],
   };
 }

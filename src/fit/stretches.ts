@@ -1,0 +1,187 @@
+/**
+ * The contour as stretches between boundaries: sharp corners (no tangent
+ * condition), straight runs (./runs.ts: one line each, met tangentially), free
+ * ends of an open contour, or, for a smooth closed contour without either, one
+ * stretch round from a seam back to itself.
+ */
+import { searchSpline, type SearchEnd } from './beam.js';
+import { makePiece, type Piece } from './piece.js';
+import { mergeNeighbours, sameCarrier, straightenFlatArcs } from './merge.js';
+import { openSeeds, seamSeeds } from './seeds.js';
+import { sharpestVertex } from './corners.js';
+import type { Run } from './runs.js';
+
+export interface StretchFit {
+  /** Pieces in order; their a, b are thinned-vertex indices, possibly ≥ mc for a closed contour (take them mod mc). */
+  pieces: Piece[];
+  /** Tangent breaks the search had to make. */
+  breaks: number;
+}
+
+interface Marker {
+  at: number;
+  run: Run | null;
+}
+
+export interface StretchParams {
+  cxy: Float64Array;
+  mc: number;
+  closed: boolean;
+  corners: number[];
+  runs: Run[];
+  tol: number;
+  width: number;
+  maxRadius: number;
+  /** Scale for seam choice (mm). */
+  scale: number;
+}
+
+/** Vertices from..to (indices modulo mc) as their own flat array. */
+function slice(cxy: Float64Array, mc: number, from: number, to: number): Float64Array {
+  const out = new Float64Array(2 * (to - from + 1));
+  for (let j = from; j <= to; j++) {
+    const k = j % mc;
+    out[2 * (j - from)] = cxy[2 * k];
+    out[2 * (j - from) + 1] = cxy[2 * k + 1];
+  }
+  return out;
+}
+
+function shift(pieces: Piece[], by: number): Piece[] {
+  for (const p of pieces) {
+    p.a += by;
+    p.b += by;
+  }
+  return pieces;
+}
+
+/**
+ * One stretch: vertices 0..last of pts from (qx, qy), with the given seeds and end.
+ * Falls back to a fresh start (a tangent break) where the search gets stuck.
+ */
+function fitStretch(pts: Float64Array, last: number, qx: number, qy: number, seeds: number[][] | null, end: SearchEnd, sp: StretchParams): StretchFit {
+  const all: Piece[] = [];
+  let breaks = 0;
+  let start = 0;
+  for (;;) {
+    const s = seeds && start === 0 ? seeds : end.kind === 'seam' && start === 0 ? seamSeeds(pts, last) : openSeeds(pts, start, last, qx, qy);
+    const res = searchSpline({ pts, start, last, qx, qy, seeds: s, end: end.kind === 'seam' && start > 0 ? { kind: 'point' } : end, tol: sp.tol, width: sp.width });
+    all.push(...res.pieces);
+    if (res.complete) break;
+    breaks++;
+    if (res.pieces.length > 0) {
+      const p = res.pieces[res.pieces.length - 1];
+      start = p.b;
+      qx = p.x1;
+      qy = p.y1;
+    } else {
+      // No piece at all from here: a straight step to the next vertex (always within tol of both).
+      const ex = pts[2 * start + 2], ey = pts[2 * start + 3];
+      const l = Math.hypot(ex - qx, ey - qy);
+      const p = l > 0 ? makePiece(pts, start, start + 1, -(ex - qx) / l, -(ey - qy) / l, 0, qx, qy, ex, ey, sp.tol) : null;
+      if (p) all.push(p);
+      start++;
+      qx = ex;
+      qy = ey;
+    }
+    if (start >= last) break;
+  }
+  return { pieces: straightenFlatArcs(pts, mergeNeighbours(pts, all, sp.tol), sp.maxRadius, sp.tol), breaks };
+}
+
+/** Fit the whole contour. */
+export function fitStretches(sp: StretchParams): StretchFit {
+  const { cxy, mc, closed } = sp;
+  const markers: Marker[] = [];
+  const cornerSet = new Set(sp.corners);
+  if (!closed) {
+    cornerSet.add(0);
+    cornerSet.add(mc - 1);
+  }
+  for (const c of cornerSet) markers.push({ at: c, run: null });
+  for (const r of sp.runs) markers.push({ at: r.j, run: r });
+  markers.sort((u, v) => u.at - v.at || (u.run ? 1 : 0) - (v.run ? 1 : 0));
+  if (closed && markers.length === 0) return fitSeam(sp);
+
+  const out: Piece[] = [];
+  let breaks = 0;
+  const count = closed ? markers.length : markers.length - 1;
+  let qx = NaN, qy = NaN;
+  let seed: number[] | null = null;
+  for (let k = 0; k < count; k++) {
+    const A = markers[k], B = markers[(k + 1) % markers.length];
+    const s = A.run ? A.at + 1 : A.at;
+    const e = B.at + (closed && k + 1 === markers.length ? mc : 0);
+    if (!Number.isFinite(qx) || !A.run) {
+      qx = cxy[2 * (s % mc)];
+      qy = cxy[2 * (s % mc) + 1];
+    }
+    const seeds = A.run && seed ? [seed] : null;
+    if (e > s) {
+      const pts = slice(cxy, mc, s, e);
+      const end: SearchEnd = B.run ? lineEnd(B.run, pts, e - s, cxy, mc, e) : { kind: 'point' };
+      const fit = fitStretch(pts, e - s, qx, qy, seeds, end, sp);
+      breaks += fit.breaks;
+      out.push(...shift(fit.pieces, s));
+      const lastPiece = fit.pieces[fit.pieces.length - 1];
+      if (lastPiece) {
+        qx = lastPiece.x1;
+        qy = lastPiece.y1;
+      }
+    }
+    if (B.run) {
+      const line = runLine(B.run, e, qx, qy, out[out.length - 1] ?? null, sp.tol);
+      if (line) {
+        out.push(line);
+        qx = line.x1;
+        qy = line.y1;
+        seed = [line.tx, line.ty];
+      }
+    }
+  }
+  return { pieces: out, breaks };
+}
+
+/** The end condition of a stretch followed by run r whose first vertex is thinned vertex e. */
+function lineEnd(r: Run, pts: Float64Array, last: number, cxy: Float64Array, mc: number, e: number): SearchEnd {
+  const at = (x: number, y: number): number => (x - r.px) * r.dx + (y - r.py) * r.dy;
+  const tE = at(pts[2 * last], pts[2 * last + 1]);
+  const tPrev = last > 0 ? at(pts[2 * last - 2], pts[2 * last - 1]) : tE;
+  const n1 = (e + 1) % mc;
+  const tNext = at(cxy[2 * n1], cxy[2 * n1 + 1]);
+  return { kind: 'line', px: r.px, py: r.py, dx: r.dx, dy: r.dy, tMin: Math.min(tPrev, tE), tMax: tNext };
+}
+
+/** The run's line piece from (qx, qy) to where its straight part ends. */
+function runLine(r: Run, e: number, qx: number, qy: number, prev: Piece | null, tol: number): Piece | null {
+  const ex = r.px + r.tEnd * r.dx, ey = r.py + r.tEnd * r.dy;
+  const dx = ex - qx, dy = ey - qy;
+  const l = Math.hypot(dx, dy);
+  if (!(l > 0)) return null;
+  // The rotor step from the previous motor (or a seed along the run) through the run's end: a translation.
+  const bp = prev ? prev.mp : -dx / l, bq = prev ? prev.mq : -dy / l, br = prev ? prev.mr : 0;
+  const p = makePiece(new Float64Array([qx, qy, ex, ey]), 0, 1, bp, bq, br, qx, qy, ex, ey, tol);
+  const piece: Piece = p && p.kind === 'line' ? p : { kind: 'line', ms: 1, mp: -0.5 * dx, mq: -0.5 * dy, mr: 0, x0: qx, y0: qy, x1: ex, y1: ey, a: 0, b: 1, tx: dx / l, ty: dy / l };
+  piece.a = e;
+  piece.b = e + 1;
+  return piece;
+}
+
+/** A smooth closed contour: one stretch from a seam round to itself, closing with the seam's tangent. */
+function fitSeam(sp: StretchParams): StretchFit {
+  const { cxy, mc } = sp;
+  const run = (seam: number): StretchFit => {
+    const pts = slice(cxy, mc, seam, seam + mc);
+    const fit = fitStretch(pts, mc, pts[0], pts[1], null, { kind: 'seam' }, sp);
+    shift(fit.pieces, seam);
+    return fit;
+  };
+  const seam = sharpestVertex(cxy, true, sp.scale);
+  let res = run(seam);
+  // Two pieces on one circle across the seam: move the seam to the first knot and search again.
+  if (res.pieces.length > 2 && sameCarrier(res.pieces[res.pieces.length - 1], res.pieces[0], sp.tol)) {
+    const again = run(res.pieces[0].b % mc);
+    if (again.pieces.length < res.pieces.length) res = again;
+  }
+  return res;
+}
