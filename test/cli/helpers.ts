@@ -1,0 +1,64 @@
+/** In-process runs of the CLI with fake streams, and scratch directories. */
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { Readable, Writable } from 'node:stream';
+import { main } from '../../src/cli/main.js';
+import type { Deviation, ElementReport, FileReport } from '../../src/report/types.js';
+
+export interface RunResult {
+  code: number;
+  stdout: string;
+  stdoutBytes: Buffer;
+  stderr: string;
+}
+
+export interface RunOptions {
+  stdin?: string | Buffer;
+  /** Pretend standard output is a terminal. */
+  isTTY?: boolean;
+  stderrIsTTY?: boolean;
+  env?: Record<string, string | undefined>;
+}
+
+/** Run `main(args)` with collecting streams; standard output is not a terminal unless asked. */
+export async function run(args: string[], o: RunOptions = {}): Promise<RunResult> {
+  const out: Buffer[] = [];
+  const err: Buffer[] = [];
+  const sink = (into: Buffer[]) =>
+    new Writable({
+      write(chunk, _enc, cb) {
+        into.push(Buffer.from(chunk));
+        cb();
+      },
+    });
+  const stdin = Readable.from(o.stdin === undefined ? [] : [Buffer.from(o.stdin)]);
+  const code = await main(args, {
+    stdin, stdout: sink(out), stderr: sink(err),
+    isTTY: o.isTTY ?? false, stderrIsTTY: o.stderrIsTTY ?? false, env: o.env ?? {},
+  });
+  const stdoutBytes = Buffer.concat(out);
+  return { code, stdout: stdoutBytes.toString('utf8'), stdoutBytes, stderr: Buffer.concat(err).toString('utf8') };
+}
+
+/** A fresh scratch directory and a function that removes it. */
+export function scratch(): { dir: string; cleanup: () => void } {
+  const dir = mkdtempSync(join(tmpdir(), 'arcspline-cli-'));
+  return { dir, cleanup: () => rmSync(dir, { recursive: true, force: true }) };
+}
+
+/** Keys of FileReport and of its parts, as declared in src/report/types.ts. */
+export const FILE_REPORT_KEYS = ['tool', 'version', 'file', 'toleranceMm', 'bytesIn', 'bytesOut', 'timeMs', 'elements', 'totals', 'warnings'] as const;
+export const TOTALS_KEYS = ['elements', 'rewritten', 'kept', 'commandsBefore', 'segmentsAfter', 'maxDeviation', 'withinTolerance'] as const;
+export const ELEMENT_KEYS = ['index', 'name', 'id', 'ancestors', 'commandsBefore', 'straightMovesNeeded', 'segmentsAfter', 'deviation', 'kept', 'keptReason'] as const;
+export const DEVIATION_KEYS = ['max', 'originalToResult', 'resultToOriginal', 'mean', 'worstMm', 'worstUser'] as const;
+
+// The lists above must name every field: a field added to the types without a test fails to compile here.
+type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
+const complete: [
+  Same<keyof FileReport, (typeof FILE_REPORT_KEYS)[number]>,
+  Same<keyof FileReport['totals'], (typeof TOTALS_KEYS)[number]>,
+  Same<keyof ElementReport, (typeof ELEMENT_KEYS)[number]>,
+  Same<keyof Deviation, (typeof DEVIATION_KEYS)[number]>,
+] = [true, true, true, true];
+void complete;
