@@ -18,6 +18,8 @@ export interface RunOptions {
   /** Pretend standard output is a terminal. */
   isTTY?: boolean;
   stderrIsTTY?: boolean;
+  /** Mark standard input as a terminal. */
+  stdinIsTTY?: boolean;
   env?: Record<string, string | undefined>;
 }
 
@@ -33,6 +35,7 @@ export async function run(args: string[], o: RunOptions = {}): Promise<RunResult
       },
     });
   const stdin = Readable.from(o.stdin === undefined ? [] : [Buffer.from(o.stdin)]);
+  if (o.stdinIsTTY) Object.assign(stdin, { isTTY: true });
   const code = await main(args, {
     stdin, stdout: sink(out), stderr: sink(err),
     isTTY: o.isTTY ?? false, stderrIsTTY: o.stderrIsTTY ?? false, env: o.env ?? {},

@@ -1,0 +1,57 @@
+/**
+ * End to end: the built command (bin/arcspline.js over dist/) in a child
+ * process, in the exact form the acceptance harness uses.
+ */
+import { beforeAll, describe, expect, it } from 'vitest';
+import { execFileSync, spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, readFileSync, readdirSync, rmSync, statSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { SaxesParser } from 'saxes';
+import { FILE_REPORT_KEYS, TOTALS_KEYS } from './helpers.js';
+
+const ROOT = fileURLToPath(new URL('../..', import.meta.url));
+const BIN = join(ROOT, 'bin', 'arcspline.js');
+const BUILT = join(ROOT, 'dist', 'src', 'cli', 'main.js');
+
+beforeAll(() => {
+  const started = Date.now();
+  try {
+    execFileSync('npx', ['tsc', '-p', 'tsconfig.json'], { cwd: ROOT, stdio: 'pipe' });
+  } catch (e) {
+    // tsc still emits when some other file has a type error; the CLI's own files are checked separately.
+    const out = String((e as { stdout?: Buffer }).stdout ?? '');
+    if (!existsSync(BUILT) || statSync(BUILT).mtimeMs < started - 1000) throw new Error(`build failed:\n${out}`);
+  }
+}, 180_000);
+
+describe('bin/arcspline.js', () => {
+  it('INPUT.svg -o OUTPUT.svg --tolerance 0.05mm --report REPORT.json', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'arcspline-bin-'));
+    try {
+      const args = [BIN, join(ROOT, 'samples', 'bracket.svg'), '-o', 'OUTPUT.svg', '--tolerance', '0.05mm', '--report', 'REPORT.json'];
+      const r = spawnSync(process.execPath, args, { cwd: dir, encoding: 'utf8', env: { ...process.env, NO_COLOR: '1' } });
+      expect(r.stderr).toMatch(/bracket\.svg: \d+ commands → \d+ segments .* ≤ 0\.05 mm, /);
+      expect(r.status).toBe(0);
+      expect(readdirSync(dir).sort()).toEqual(['OUTPUT.svg', 'REPORT.json']);
+      // saxes, a general-purpose XML parser, reads the output without error.
+      let errors = 0;
+      const p = new SaxesParser({ xmlns: true });
+      p.on('error', () => errors++);
+      p.write(readFileSync(join(dir, 'OUTPUT.svg'), 'utf8')).close();
+      expect(errors).toBe(0);
+      const report = JSON.parse(readFileSync(join(dir, 'REPORT.json'), 'utf8'));
+      expect(Object.keys(report).sort()).toEqual([...FILE_REPORT_KEYS].sort());
+      expect(Object.keys(report.totals).sort()).toEqual([...TOTALS_KEYS].sort());
+      expect(report.toleranceMm).toBe(0.05);
+      expect(report.totals.maxDeviation).toBeLessThanOrEqual(0.05);
+      // The exit code reaches the shell: a missing input is 2.
+      const bad = spawnSync(process.execPath, [BIN, 'missing.svg', '-o', 'x.svg'], { cwd: dir, encoding: 'utf8' });
+      expect(bad.status).toBe(2);
+      expect(bad.stderr).toBe('arcspline: cannot read missing.svg: no such file or directory\n');
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+});
