@@ -188,9 +188,22 @@ export async function writeFileAtomic(path: string, data: string | Uint8Array): 
   await staged.commit();
 }
 
-/** Write text to a stream and wait until it has been handed to the system. */
+/**
+ * Write text to a stream and wait until it has been handed to the system.
+ * A failed write (EPIPE when the reader has gone) rejects instead of becoming
+ * an unhandled 'error' event.
+ */
 export function writeToStream(stream: Writable, text: string): Promise<void> {
   return new Promise((resolve, reject) => {
-    stream.write(text, (err) => (err ? reject(err) : resolve()));
+    const onError = (err: Error): void => reject(err);
+    stream.once('error', onError);
+    stream.write(text, (err) => {
+      stream.off('error', onError);
+      // The stream emits the same error after this callback; keep a listener so it is not unhandled.
+      if (err) {
+        stream.once('error', () => undefined);
+        reject(err);
+      } else resolve();
+    });
   });
 }

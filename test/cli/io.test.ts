@@ -1,9 +1,9 @@
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { chmodSync, existsSync, linkSync, mkdirSync, readFileSync, readdirSync, statSync, symlinkSync, writeFileSync, lstatSync } from 'node:fs';
 import { join } from 'node:path';
-import { Readable } from 'node:stream';
+import { Readable, Writable } from 'node:stream';
 import { UsageError } from '../../src/cli/exitCodes.js';
-import { decodeSvgBytes, readInputBytes, sameFile, stageFile, writeFileAtomic } from '../../src/cli/io.js';
+import { decodeSvgBytes, readInputBytes, sameFile, stageFile, writeFileAtomic, writeToStream } from '../../src/cli/io.js';
 import { scratch } from './helpers.js';
 
 let dir = '';
@@ -80,5 +80,21 @@ describe('reading input', () => {
     expect(await sameFile(join(dir, 'a'), join(dir, 'c'))).toBe(false);
     expect(await sameFile(join(dir, 'a'), join(dir, 'missing'))).toBe(false);
     expect(existsSync(join(dir, 'missing'))).toBe(false);
+  });
+});
+
+describe('writeToStream', () => {
+  it('rejects on a broken pipe instead of leaving an unhandled error event', async () => {
+    const broken = new Writable({
+      write(_c, _e, cb) {
+        cb(Object.assign(new Error('write EPIPE'), { code: 'EPIPE' }));
+      },
+    });
+    await expect(writeToStream(broken, 'x')).rejects.toThrow('EPIPE');
+    await new Promise((r) => setTimeout(r, 10)); // the stream's own 'error' event has fired by now, handled
+    const chunks: string[] = [];
+    const ok = new Writable({ write(c, _e, cb) { chunks.push(String(c)); cb(); } });
+    await writeToStream(ok, 'abc');
+    expect(chunks).toEqual(['abc']);
   });
 });
