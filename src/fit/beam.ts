@@ -153,28 +153,29 @@ function closingMoves(n: Node, p: SearchParams, onTerminal: (t: Node) => void): 
   const { px, py, dx, dy } = end;
   const cr = n.tx * dy - n.ty * dx, dot = n.tx * dx + n.ty * dy;
   if (Math.abs(cr) > 1e-12 || dot < 0) {
-    // Turn towards the run; for a U-turn (antiparallel tangents) towards the side the run lies on.
-    const side = (px - n.qx) * -n.ty + (py - n.qy) * n.tx;
-    const sg = Math.abs(cr) > 1e-12 ? (cr > 0 ? 1 : -1) : side > 0 ? 1 : -1;
-    // Unit normals towards the centre at the start (of T) and at the end (of D).
-    const ux = -sg * n.ty + sg * dy, uy = sg * n.tx - sg * dx;
-    const den = ux * dy - uy * dx;
-    const r = den !== 0 ? ((px - n.qx) * dy - (py - n.qy) * dx) / den : NaN;
-    if (r > 0 && Number.isFinite(r)) {
+    // Both turn directions can reach the line; the wrong one gives r ≤ 0 or misses the run.
+    for (const sg of cr >= 0 ? [1, -1] : [-1, 1]) {
+      // Unit normals towards the centre at the start (of T) and at the end (of D).
+      const ux = -sg * n.ty + sg * dy, uy = sg * n.tx - sg * dx;
+      const den = ux * dy - uy * dx;
+      const r = den !== 0 ? ((px - n.qx) * dy - (py - n.qy) * dx) / den : NaN;
+      if (!(r > 0) || !Number.isFinite(r)) continue;
       const ex = n.qx + r * ux, ey = n.qy + r * uy;
       const t = (ex - px) * dx + (ey - py) * dy;
-      if (t >= end.tMin && t <= end.tMax) {
-        // The run's first vertex is covered by the arc when the touch point lies beyond it.
-        const tl = (pts[2 * last] - px) * dx + (pts[2 * last + 1] - py) * dy;
-        const upTo = t >= tl ? last : last - 1;
-        const piece = upTo >= n.a ? makePiece(pts, n.a, upTo, n.bp, n.bq, n.br, n.qx, n.qy, ex, ey, tol) : null;
-        if (piece) onTerminal(childNode(n, piece, null, last, p));
+      if (t < end.tMin || t > end.tMax) continue;
+      // The run's first vertex is covered by the arc when the touch point lies beyond it.
+      const tl = (pts[2 * last] - px) * dx + (pts[2 * last + 1] - py) * dy;
+      const upTo = t >= tl ? last : last - 1;
+      const piece = upTo >= n.a ? makePiece(pts, n.a, upTo, n.bp, n.bq, n.br, n.qx, n.qy, ex, ey, tol) : null;
+      if (piece) {
+        onTerminal(childNode(n, piece, null, last, p));
+        break;
       }
     }
   } else {
     // Already running along the line: done if on it.
     const off = Math.abs((n.qx - px) * dy - (n.qy - py) * dx);
-    if (off <= 1e-9 * tol && n.tx * dx + n.ty * dy > 0) onTerminal({ ...n, level: n.level, parent: n.parent });
+    if (off <= 1e-9 * tol) onTerminal({ ...n });
   }
   // Or a biarc onto the run's first vertex (projected onto the run) with the run's direction.
   const tl = (pts[2 * last] - px) * dx + (pts[2 * last + 1] - py) * dy;

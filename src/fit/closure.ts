@@ -35,7 +35,30 @@ export function biarcClosure(
     d = (vt - Math.sqrt(Math.max(0, disc))) / (tt - 4);
   }
   if (!(d > 0) || !Number.isFinite(d)) return null;
-  const jx = 0.5 * (qx + d * tx + ex - d * t0x), jy = 0.5 * (qy + d * ty + ey - d * t0y);
+  // The equal-length biarc first, then others of the one-parameter family: for a first tangent
+  // length d1 the second is d2 = (|w|² − d1²) / (2 (w·t_0 + d1)) with w = v − d1 t_a, and the
+  // junction divides the control segment in the ratio d1 : d2.
+  for (const lambda of BIARC_RATIOS) {
+    const d1 = lambda * d;
+    const wx = vx - d1 * tx, wy = vy - d1 * ty;
+    const d2 = (wx * wx + wy * wy - d1 * d1) / (2 * (wx * t0x + wy * t0y + d1));
+    if (!(d2 > 0) || !Number.isFinite(d2)) continue;
+    const ax = qx + d1 * tx, ay = qy + d1 * ty, bx = ex - d2 * t0x, by = ey - d2 * t0y;
+    const f = d1 / (d1 + d2);
+    const pair = halves(pts, a, last, bp, bq, br, qx, qy, ax + f * (bx - ax), ay + f * (by - ay), ex, ey, t0x, t0y, tol);
+    if (pair) return pair;
+  }
+  return null;
+}
+
+/** Ratios of the first tangent length to the equal-length one, tried in turn. */
+const BIARC_RATIOS = [1, 0.6, 1.6, 0.35, 2.8];
+
+/** The two rotor arcs through junction (jx, jy), checked; null if either is off. */
+function halves(
+  pts: Float64Array, a: number, last: number, bp: number, bq: number, br: number,
+  qx: number, qy: number, jx: number, jy: number, ex: number, ey: number, t0x: number, t0y: number, tol: number,
+): [Piece, Piece] | null {
   // Split the vertex range at the vertex nearest the junction.
   let split = a, best = Infinity;
   for (let k = a; k <= last; k++) {

@@ -54,14 +54,18 @@ export function sameCarrier(A: Piece, B: Piece, tol: number): boolean {
   return sa * sb > 0 && Math.hypot(acx - bcx, acy - bcy) <= eps && Math.abs(rA - rB) <= eps;
 }
 
-/** Arcs with a radius beyond `maxRadius` become their chord where the chord fits. */
+/** Largest tangent break (radians) a straightened arc may leave: 1e-4 rad ≈ 0.006°. */
+export const MAX_KINK = 1e-4;
+
+/** Arcs with a radius beyond `maxRadius` become their chord where the chord fits and the kink is negligible. */
 export function straightenFlatArcs(pts: Float64Array, pieces: Piece[], maxRadius: number, tol: number): Piece[] {
   return pieces.map((p) => {
     if (p.kind !== 'arc') return p;
     const r = p.mr;
     const rad = Math.hypot(p.x0 + p.mq / r, p.y0 - p.mp / r);
-    if (rad <= maxRadius || !lineFits(pts, p.a, p.b, p.x0, p.y0, p.x1, p.y1, tol)) return p;
     const dx = p.x1 - p.x0, dy = p.y1 - p.y0, l = Math.hypot(dx, dy);
+    // The chord leaves the neighbours' tangents by half the arc's angle: only a negligible kink is allowed.
+    if (rad <= maxRadius || l / (2 * rad) > MAX_KINK || !lineFits(pts, p.a, p.b, p.x0, p.y0, p.x1, p.y1, tol)) return p;
     return { ...p, kind: 'line', ms: 1, mp: -0.5 * dx, mq: -0.5 * dy, mr: 0, tx: dx / l, ty: dy / l };
   });
 }

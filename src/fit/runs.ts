@@ -22,6 +22,8 @@ const RUN_MIN_LENGTH = 4;
 /** Input vertices of a run lie this close to its line, as a fraction of the tolerance. */
 const RUN_STRAIGHTNESS = 0.02;
 
+/** Interior input vertices needed to call a run of several input edges straight. */
+const RUN_MIN_VERTICES = 8;
 /** How much longer than each neighbouring thinned edge a run must be. */
 const RUN_CONTRAST = 3;
 
@@ -59,31 +61,35 @@ export function findRuns(clean: Float64Array, m: number, coarse: number[], close
     if (!(len >= RUN_MIN_LENGTH * tol)) continue;
     // Much longer than the edges beside it: a chord of a curve is about as long as its neighbours.
     if (!longerThanNeighbours(clean, coarse, j, closed, len)) continue;
-    // The run's line: through its first and last interior input vertex when they span most of it
-    // (its end vertices may already lie on the bends), else the chord.
+    // A run is one input edge, or enough input vertices to show it is straight (a few can line up by chance in a noisy trace).
     const count = (i1 - i0 + m) % m;
+    if (count > 1 && count < RUN_MIN_VERTICES + 1) continue;
+    const at = (s: number): number => (i0 + s) % m;
+    // The run's line through two vertices a quarter in from either end (its ends may already lie on the bends).
     let px = ax, py = ay, dx = (bx - ax) / len, dy = (by - ay) / len;
-    if (count >= 3) {
-      const fi = (i0 + 1) % m, li = (i0 + count - 1) % m;
-      const fx = clean[2 * fi], fy = clean[2 * fi + 1], lx = clean[2 * li], ly = clean[2 * li + 1];
-      const l = Math.hypot(lx - fx, ly - fy);
-      if (l >= 0.5 * len) {
-        px = fx;
-        py = fy;
-        dx = (lx - fx) / l;
-        dy = (ly - fy) / l;
-      }
+    if (count > 1) {
+      const f = at(Math.round(count / 4)), l = at(Math.round((3 * count) / 4));
+      const fx = clean[2 * f], fy = clean[2 * f + 1];
+      const ll = Math.hypot(clean[2 * l] - fx, clean[2 * l + 1] - fy);
+      px = fx;
+      py = fy;
+      dx = (clean[2 * l] - fx) / ll;
+      dy = (clean[2 * l + 1] - fy) / ll;
     }
+    const off = (k: number): number => Math.abs((clean[2 * k] - px) * dy - (clean[2 * k + 1] - py) * dx);
     // Every interior input vertex (walking round the wrap of a closed contour) lies on that line.
-    let straight = true;
+    let straight = true, noise = 0;
     for (let s = 1; s < count && straight; s++) {
-      const k = (i0 + s) % m;
-      if (Math.abs((clean[2 * k] - px) * dy - (clean[2 * k + 1] - py) * dx) > RUN_STRAIGHTNESS * tol) straight = false;
+      const d = off(at(s));
+      if (d > RUN_STRAIGHTNESS * tol) straight = false;
+      if (s >= count / 4 && s <= (3 * count) / 4 && d > noise) noise = d;
     }
     if (!straight) continue;
-    // The straight part ends at the end vertex if that lies on the line, else at the last interior vertex.
-    const onLine = (k: number): boolean => Math.abs((clean[2 * k] - px) * dy - (clean[2 * k + 1] - py) * dx) <= RUN_STRAIGHTNESS * tol;
-    const endK = onLine(i1) || count < 2 ? i1 : (i0 + count - 1) % m;
+    // The straight part ends where the input leaves the line by more than its own noise: walk out from the middle.
+    const limit = Math.min(RUN_STRAIGHTNESS * tol, Math.max(4 * noise, 1e-9 * tol));
+    let endS = Math.round((3 * count) / 4);
+    while (endS < count && off(at(endS + 1)) <= limit) endS++;
+    const endK = count > 1 ? at(endS) : i1;
     const tEnd = (clean[2 * endK] - px) * dx + (clean[2 * endK + 1] - py) * dy;
     runs.push({ j, px, py, dx, dy, tEnd });
   }

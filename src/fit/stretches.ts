@@ -108,6 +108,13 @@ export function fitStretches(sp: StretchParams): StretchFit {
   const count = closed ? markers.length : markers.length - 1;
   let qx = NaN, qy = NaN;
   let seed: number[] | null = null;
+  const first = markers[0].run;
+  if (closed && first) {
+    // Round a closed contour the first stretch starts where the first run's line ends (the last line written).
+    qx = first.px + first.tEnd * first.dx;
+    qy = first.py + first.tEnd * first.dy;
+    seed = [first.dx, first.dy];
+  }
   for (let k = 0; k < count; k++) {
     const A = markers[k], B = markers[(k + 1) % markers.length];
     const s = A.run ? A.at + 1 : A.at;
