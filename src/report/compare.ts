@@ -76,10 +76,12 @@ export interface Comparison {
   warnings: string[];
 }
 
-interface Item {
+/** A rendered geometry element that draws something, with its geometry in its own user units. */
+export interface GeometryItem {
   el: GeometryElement;
   path: PathData;
 }
+type Item = GeometryItem;
 
 /** Chord error of the whole-document sampling, as a fraction of the tolerance (as in measure.ts). */
 const ERROR_FRACTION = 1 / 1000;
@@ -105,7 +107,11 @@ function draws(p: PathData): boolean {
   return false;
 }
 
-function items(doc: SvgDocument, warnings: string[]): Item[] {
+/**
+ * The rendered geometry elements of a read document that draw something, in
+ * document order; path data errors and shape errors are noted in `warnings`.
+ */
+export function geometryItems(doc: SvgDocument, warnings: string[]): GeometryItem[] {
   const out: Item[] = [];
   for (const el of doc.elements) {
     if (!el.rewritable) continue;
@@ -173,13 +179,13 @@ export function compareSvg(a: string, b: string, opts: CompareOptions): Comparis
   const read = { assumedMmPerUnit: opts.assumedMmPerUnit ?? DEFAULT_OPTIONS.assumedMmPerUnit };
   const da = readSvg(a, read), db = readSvg(b, read);
   const wa = [...da.warnings], wb = [...db.warnings];
-  const ia = items(da, wa), ib = items(db, wb);
+  const ia = geometryItems(da, wa), ib = geometryItems(db, wb);
   const pairs: PairDeviation[] = [];
   const used = new Set<Item>();
   const add = (x: Item, y: Item, by: 'id' | 'order'): void => {
     used.add(x).add(y);
     const d = measureDeviation(x.path, x.el.toMm, y.path, y.el.toMm, tol);
-    // Both draw something (items() filters), so a distance exists; null would be a sampling defect.
+    // Both draw something (geometryItems filters), so a distance exists; null would be a sampling defect.
     if (d === null) throw new Error(`internal: no distance between <${x.el.name}> ${x.el.index} and <${y.el.name}> ${y.el.index}`);
     pairs.push({ a: ref(x.el), b: ref(y.el), by, deviation: d, withinTolerance: d.max <= tol });
   };
