@@ -60,6 +60,13 @@ function shift(pieces: Piece[], by: number): Piece[] {
  * Falls back to a fresh start (a tangent break) where the search gets stuck.
  */
 function fitStretch(pts: Float64Array, last: number, qx: number, qy: number, seeds: number[][] | null, end: SearchEnd, sp: StretchParams): StretchFit {
+  // Free at both ends (between corners): one line when the chord holds everything (a straight side, noisy or not).
+  if (!seeds && end.kind === 'point') {
+    const ex = pts[2 * last], ey = pts[2 * last + 1];
+    const l = Math.hypot(ex - qx, ey - qy);
+    const line = l > 0 ? makePiece(pts, 0, last, -(ex - qx) / l, -(ey - qy) / l, 0, qx, qy, ex, ey, sp.tol) : null;
+    if (line && line.kind === 'line') return { pieces: [line], breaks: 0 };
+  }
   const all: Piece[] = [];
   let breaks = 0;
   let start = 0;
