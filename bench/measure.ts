@@ -1,0 +1,129 @@
+/**
+ * Benchmark of the independent measurement (src/report/measure.ts) on the
+ * pipeline benchmark's kind of element: closed smooth contours of 2,500 line
+ * vertices (same generator formula as bench/bigfile.ts, our own scenario,
+ * seeded), refitted by the project's own fitter and writer and re-read from the
+ * written text, exactly as src/refit.ts does before it measures.
+ *
+ * Reports medians over several runs for the current implementation and for the
+ * frozen previous one (bench/baseline/), run in the same process and
+ * interleaved so machine load hits both alike; the ratio of medians is the
+ * speed-up. A checksum of the reported maxima guards against dropped work and
+ * shows how far the two disagree (both are upper bounds; see measure.ts).
+ *
+ * Run alone: `npx tsx bench/measure.ts [contours] [runs]`.
+ */
+import { parsePathData } from '../src/svg/pathData.js';
+import type { PathData } from '../src/svg/pathTypes.js';
+import type { Matrix } from '../src/svg/matrixTypes.js';
+import { identityMatrix, invert } from '../src/svg/matrix.js';
+import { flattenPath } from '../src/geom/flatten.js';
+import { fitPolyline } from '../src/fit/fitPolyline.js';
+import { emitSegments } from '../src/write/emit.js';
+import { PathWriter } from '../src/write/pathWriter.js';
+import { measureDeviation } from '../src/report/measure.js';
+import { measureDeviation as baselineMeasure } from './baseline/measure.js';
+
+interface Pair { original: PathData; written: PathData; vertices: number; commands: number }
+
+/** Seeded smooth closed contours as L path text (formula of bench/bigfile.ts). */
+function contourTexts(count: number, vertices: number): string[] {
+  let seed = 12345;
+  const rand = (): number => {
+    seed = (seed * 1664525 + 1013904223) >>> 0;
+    return seed / 2 ** 32;
+  };
+  const out: string[] = [];
+  const cols = Math.ceil(Math.sqrt(count));
+  for (let k = 0; k < count; k++) {
+    const cx = 30 + 60 * (k % cols), cy = 30 + 60 * Math.floor(k / cols);
+    const a1 = rand() * 4, a2 = rand() * 2, p1 = rand() * 6, p2 = rand() * 6;
+    const pts: string[] = [];
+    for (let i = 0; i < vertices; i++) {
+      const t = (2 * Math.PI * i) / vertices;
+      const r = 20 + a1 * Math.sin(3 * t + p1) + a2 * Math.cos(7 * t + p2);
+      pts.push(`${(cx + r * Math.cos(t)).toFixed(4)} ${(cy + r * Math.sin(t)).toFixed(4)}`);
+    }
+    out.push(`M${pts.join(' L')} Z`);
+  }
+  return out;
+}
+
+/** Original and written path data per contour, written with 4 decimals (what 0.1 mm in mm units gets). */
+function makePairs(count: number, tol: number): Pair[] {
+  const id: Matrix = identityMatrix();
+  const mmToLocal = invert(new Float64Array(6), id)!;
+  const pairs: Pair[] = [];
+  for (const text of contourTexts(count, 2500)) {
+    const original = parsePathData(text);
+    const contours = flattenPath(original, id, tol);
+    const fitted = contours.map((c) => ({
+      segments: fitPolyline(c.xy, { tolerance: tol * 0.9, closed: c.closed, corners: c.corners }).segments,
+      closed: c.closed,
+    }));
+    const sink = new PathWriter({ digits: 4 });
+    emitSegments(sink, fitted, mmToLocal, { digits: 4 });
+    const written = parsePathData(sink.toString());
+    pairs.push({ original, written, vertices: original.ops.length, commands: written.ops.length });
+  }
+  return pairs;
+}
+
+type Measure = typeof measureDeviation;
+
+/** One run over all pairs: ms and the sum of maxima (the checksum). */
+function run(f: Measure, pairs: Pair[], tol: number): { ms: number; sum: number; worst: number } {
+  const id = identityMatrix();
+  const t0 = performance.now();
+  let sum = 0, worst = 0;
+  for (const p of pairs) {
+    const d = f(p.original, id, p.written, id, tol)!;
+    sum += d.max;
+    worst = Math.max(worst, d.max);
+  }
+  return { ms: performance.now() - t0, sum, worst };
+}
+
+function median(v: number[]): number {
+  const s = [...v].sort((a, b) => a - b);
+  const n = s.length;
+  return n % 2 ? s[(n - 1) >> 1] : (s[n / 2 - 1] + s[n / 2]) / 2;
+}
+
+/**
+ * Time the current and the previous measurement, interleaved, on `contours`
+ * refitted contours at tolerance 0.1 mm (the default); `runs` timed runs each
+ * after one warm-up run.
+ *
+ * @returns a printable block: medians (ms per run and per element), ratio, checksums
+ */
+export async function benchMeasure(contours = 40, runs = 7): Promise<string> {
+  const tol = 0.1;
+  const pairs = makePairs(contours, tol);
+  const commands = pairs.reduce((s, p) => s + p.commands, 0) / pairs.length;
+  run(measureDeviation, pairs, tol);
+  run(baselineMeasure, pairs, tol);
+  const cur: number[] = [], base: number[] = [];
+  let cs = 0, bs = 0, cw = 0, bw = 0;
+  for (let r = 0; r < runs; r++) {
+    const b = run(baselineMeasure, pairs, tol);
+    const c = run(measureDeviation, pairs, tol);
+    base.push(b.ms); cur.push(c.ms);
+    bs = b.sum; cs = c.sum; bw = b.worst; cw = c.worst;
+    await new Promise((res) => setImmediate(res));
+  }
+  const mc = median(cur), mb = median(base);
+  const per = (ms: number): string => `${(ms / pairs.length).toFixed(2)} ms/element`;
+  return [
+    `measureDeviation: ${pairs.length} closed contours of 2,500 L vertices → ~${commands.toFixed(0)} written commands, tol ${tol} mm, ${runs} runs (median)`,
+    `  previous (bench/baseline): ${mb.toFixed(0)} ms/run, ${per(mb)}`,
+    `  current:                   ${mc.toFixed(0)} ms/run, ${per(mc)}`,
+    `  speed-up: ${(mb / mc).toFixed(2)}×  (runs ms, previous: ${base.map((x) => x.toFixed(0)).join(' ')}; current: ${cur.map((x) => x.toFixed(0)).join(' ')})`,
+    `  checksum Σmax: previous ${bs.toFixed(6)} mm, current ${cs.toFixed(6)} mm; worst max: previous ${bw.toFixed(6)}, current ${cw.toFixed(6)} mm`,
+  ].join('\n');
+}
+
+if (import.meta.url === `file://${process.argv[1]}` || process.argv[1]?.endsWith('bench/measure.ts')) {
+  const [c, r] = process.argv.slice(2).map(Number);
+  console.log(await benchMeasure(c || undefined, r || undefined));
+}
