@@ -213,9 +213,7 @@ function refitElement(doc: SvgDocument, el: GeometryElement, opts: Options, time
 function straightMoves(c: Contour, tol: number): number {
   const n = c.xy.length >> 1;
   if (n < 2) return 0;
-  const order = new Int32Array(c.closed ? n + 1 : n);
-  for (let i = 0; i < n; i++) order[i] = i;
-  return thinWithin(c.xy, order, tol, null).length - 1;
+  return thinWithin(c.xy, n, c.closed, tol, null).length - 1;
 }
 
 function elementEdits(doc: SvgDocument, el: GeometryElement, d: string, opts: Options): Edit[] {

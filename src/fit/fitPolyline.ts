@@ -52,47 +52,35 @@ export function fitPolyline(xy: Float64Array, opts: FitOptions): FitResult {
   for (let i = 0; i < 2 * n; i++) {
     if (!Number.isFinite(xy[i])) throw new RangeError(`coordinate ${i >> 1} is not finite: ${xy[i]}`);
   }
-  // 1. Distinct consecutive vertices, in a local frame at the first vertex (keeps precision far from the origin).
-  const ox = n > 0 ? xy[0] : 0, oy = n > 0 ? xy[1] : 0;
-  const orig = new Int32Array(n);
-  const clean = new Float64Array(2 * n);
-  let m = 0;
-  for (let i = 0; i < n; i++) {
-    const x = xy[2 * i] - ox, y = xy[2 * i + 1] - oy;
-    if (m > 0 && clean[2 * m - 2] === x && clean[2 * m - 1] === y) continue;
-    clean[2 * m] = x;
-    clean[2 * m + 1] = y;
-    orig[m++] = i;
-  }
-  if (closedIn && m > 1 && clean[0] === clean[2 * m - 2] && clean[1] === clean[2 * m - 1]) m--;
-  const closed = closedIn && m >= 3;
-  const forced = new Set<number>();
-  if (opts.corners) {
-    const pos = new Map<number, number>();
-    for (let k = 0; k < m; k++) pos.set(orig[k], k);
-    for (let i = 0; i < opts.corners.length; i++) {
-      const k = pos.get(opts.corners[i]);
-      if (k !== undefined) forced.add(k);
-    }
-  }
-  if (m < 2) return { segments: [], corners: [], breaks: 0 };
+  if (n < 2) return { segments: [], corners: [], breaks: 0 };
   const tolFit = FIT_SHARE * tol - THIN_SHARE * tol;
+  const forcedIdx = opts.corners ? Int32Array.from(opts.corners).filter((k) => k >= 0 && k < n).sort() : null;
 
-  // 2. Thin (closed: walk round and back to vertex 0).
-  const order = new Int32Array(closed ? m + 1 : m);
-  for (let k = 0; k < m; k++) order[k] = k;
-  const anchors = new Uint8Array(order.length);
-  for (const k of forced) anchors[k] = 1;
-  const keptPos = thinWithin(clean, order, THIN_SHARE * tol, anchors);
+  // 1. Thin the input within a small share of the tolerance (closed: walk round and back to vertex 0);
+  //    exactly repeated vertices drop out here.
+  const kept = thinWithin(xy, n, closedIn, THIN_SHARE * tol, forcedIdx);
   const coarseIdx: number[] = [];
-  for (let j = 0; j < keptPos.length; j++) coarseIdx.push(order[keptPos[j]]);
-  if (closed) coarseIdx.pop(); // vertex 0 again
+  for (let j = 0; j < kept.length; j++) {
+    const k = kept[j];
+    const prev = coarseIdx.length > 0 ? coarseIdx[coarseIdx.length - 1] : -1;
+    if (prev >= 0 && xy[2 * k] === xy[2 * prev] && xy[2 * k + 1] === xy[2 * prev + 1]) continue;
+    coarseIdx.push(k);
+  }
+  if (closedIn) {
+    // The walk came back to vertex 0 (or to a copy of it): do not keep it twice.
+    while (coarseIdx.length > 1 && xy[2 * coarseIdx[coarseIdx.length - 1]] === xy[0] && xy[2 * coarseIdx[coarseIdx.length - 1] + 1] === xy[1]) coarseIdx.pop();
+  }
   const mc = coarseIdx.length;
+  if (mc < 2) return { segments: [], corners: [], breaks: 0 };
+  const closed = closedIn && mc >= 3;
+  // The fitter works in a local frame at the first vertex (keeps precision far from the origin).
+  const ox = xy[0], oy = xy[1];
   const cxy = new Float64Array(2 * mc);
   for (let j = 0; j < mc; j++) {
-    cxy[2 * j] = clean[2 * coarseIdx[j]];
-    cxy[2 * j + 1] = clean[2 * coarseIdx[j] + 1];
+    cxy[2 * j] = xy[2 * coarseIdx[j]] - ox;
+    cxy[2 * j + 1] = xy[2 * coarseIdx[j] + 1] - oy;
   }
+  const forced = new Set<number>(forcedIdx ?? []);
 
   // 3. Corners on the thinned polyline, plus the forced ones.
   const cornerSet = new Set<number>(findCorners(cxy, closed, 5 * tolFit, angle));
@@ -102,15 +90,19 @@ export function fitPolyline(xy: Float64Array, opts: FitOptions): FitResult {
   const cornersC = [...cornerSet].sort((a, b) => a - b);
 
   // 4. Straight runs, then the stretches between runs and corners.
-  const runs = findRuns(clean, m, coarseIdx, closed, tolFit);
+  const runs = findRuns(xy, n, coarseIdx, closed, tolFit);
+  for (const r of runs) {
+    r.px -= ox;
+    r.py -= oy;
+  }
   const extent = bboxDiagonal(cxy);
   const fit = fitStretches({
     cxy, mc, closed, corners: cornersC, runs, tol: tolFit, width,
     maxRadius: Math.max(20 * extent, 1e4 * tol), scale: 5 * tolFit,
   });
-  const out = fit.pieces.map((p) => toSegment(p, mc, ox, oy, orig, coarseIdx));
+  const out = fit.pieces.map((p) => toSegment(p, mc, ox, oy, coarseIdx));
   const breaks = fit.breaks;
-  const cornersOut = cornersC.map((j) => orig[coarseIdx[j]]);
+  const cornersOut = cornersC.map((j) => coarseIdx[j]);
   return { segments: out, corners: cornersOut, breaks };
 }
 
@@ -125,7 +117,7 @@ function bboxDiagonal(xy: Float64Array): number {
   return Math.hypot(x1 - x0, y1 - y0);
 }
 
-function toSegment(p: Piece, mc: number, ox: number, oy: number, orig: Int32Array, coarseIdx: number[]): Segment {
+function toSegment(p: Piece, mc: number, ox: number, oy: number, coarseIdx: number[]): Segment {
   const m = new Float64Array(4);
   m[0] = p.ms;
   // Move the motor back from the local frame: the centre (−q/r, p/r) shifts by (ox, oy).
@@ -135,6 +127,6 @@ function toSegment(p: Piece, mc: number, ox: number, oy: number, orig: Int32Arra
   return {
     kind: p.kind, motor: m,
     x0: p.x0 + ox, y0: p.y0 + oy, x1: p.x1 + ox, y1: p.y1 + oy,
-    i0: orig[coarseIdx[p.a % mc]], i1: orig[coarseIdx[p.b % mc]],
+    i0: coarseIdx[p.a % mc], i1: coarseIdx[p.b % mc],
   };
 }

@@ -14,30 +14,43 @@
  */
 
 /**
- * Positions (into `order`) of the vertices to keep, ascending. The first and last index of every
- * run between `anchors` (and the ends) are always kept.
+ * Indices of the vertices to keep, in walking order. The walk covers vertices
+ * 0..n−1 and, for a closed contour, returns to vertex 0 (which then ends the
+ * list). The ends and every vertex listed in `anchors` are always kept.
+ * Exactly repeated vertices are never candidates, so they drop out.
  * @param xy flat x,y pairs
- * @param order vertex indices to walk, in order (lets a closed contour pass its wrap-around)
  * @param delta bound in the units of xy
- * @param anchors flags per position in `order`: 1 = must be kept
+ * @param anchors vertex indices (ascending) that must be kept, or null
  */
-export function thinWithin(xy: Float64Array, order: Int32Array, delta: number, anchors: Uint8Array | null): Int32Array {
-  const n = order.length;
-  const keep = new Int32Array(Math.max(n, 1));
+export function thinWithin(xy: Float64Array, n: number, closed: boolean, delta: number, anchors: ArrayLike<number> | null): Int32Array {
+  const steps = closed ? n + 1 : n;
+  let keep = new Int32Array(Math.min(Math.max(steps, 1), 1024));
   let kept = 0;
   if (n === 0) return keep.subarray(0, 0);
-  keep[kept++] = 0;
+  const push = (v: number): void => {
+    if (kept === keep.length) {
+      const grown = new Int32Array(Math.min(steps, keep.length * 2));
+      grown.set(keep);
+      keep = grown;
+    }
+    keep[kept++] = v;
+  };
+  push(0);
+  let nextAnchor = 0;
+  const anchorCount = anchors ? anchors.length : 0;
   let anchor = 0;
-  while (anchor < n - 1) {
-    const ia = order[anchor];
+  while (anchor < steps - 1) {
+    const ia = anchor === n ? 0 : anchor;
     const ax = xy[2 * ia], ay = xy[2 * ia + 1];
+    while (nextAnchor < anchorCount && (anchors as ArrayLike<number>)[nextAnchor] <= anchor) nextAnchor++;
+    const stopAt = nextAnchor < anchorCount ? (anchors as ArrayLike<number>)[nextAnchor] : steps;
     // The wedge is kept as its two boundary directions (unit vectors), lo clockwise of hi;
     // it is always narrower than 180°, so cross-product signs order directions in it.
     let loX = 0, loY = 0, hiX = 0, hiY = 0, open = false;
     let dmax = 0;
     let lastValid = anchor + 1;
-    for (let k = anchor + 1; k < n; k++) {
-      const ik = order[k];
+    for (let k = anchor + 1; k < steps; k++) {
+      const ik = k === n ? 0 : k;
       const vx = xy[2 * ik] - ax, vy = xy[2 * ik + 1] - ay;
       const d = Math.sqrt(vx * vx + vy * vy);
       if (d > delta) {
@@ -71,9 +84,10 @@ export function thinWithin(xy: Float64Array, order: Int32Array, delta: number, a
       } else if (k === anchor + 1) {
         lastValid = k;
       }
-      if (anchors !== null && anchors[k] === 1) break;
+      // A vertex that must stay ends the segment here at the latest.
+      if (k === stopAt) break;
     }
-    keep[kept++] = lastValid;
+    push(lastValid === n ? 0 : lastValid);
     anchor = lastValid;
   }
   return keep.subarray(0, kept);

@@ -1,0 +1,37 @@
+/**
+ * End-to-end benchmark (issue: the main job end to end): a generated drawing of
+ * 400 closed smooth contours × 2,500 vertices (about 19 MB) through refitSvg:
+ * time split into parse, flatten, fit, write and measure; input MB per second;
+ * peak memory (RSS high-water mark of this process) relative to the input size.
+ * Run: npm run bench or npx tsx bench/pipeline.ts.
+ */
+import { refitSvg } from '../src/refit.js';
+import { bigDrawing } from './bigfile.js';
+import { median, fmt } from './stats.js';
+
+export function benchPipeline(runs = 3): string {
+  const text = bigDrawing();
+  const mb = Buffer.byteLength(text) / 1e6;
+  const rss0 = process.memoryUsage().rss;
+  refitSvg(text, { tolerance: 0.05 }); // warm-up
+  const totals: number[] = [];
+  const stages: Record<string, number[]> = { parse: [], flatten: [], fit: [], write: [], measure: [] };
+  let summary = '';
+  for (let k = 0; k < runs; k++) {
+    const t0 = performance.now();
+    const r = refitSvg(text, { tolerance: 0.05 });
+    totals.push(performance.now() - t0);
+    for (const s of Object.keys(stages)) stages[s].push(r.times[s as keyof typeof r.times]);
+    summary = `${r.report.totals.commandsBefore} commands → ${r.report.totals.segmentsAfter.arcs} arcs + ${r.report.totals.segmentsAfter.lines} lines, max deviation ${fmt(r.report.totals.maxDeviation, 4)} mm, ${fmt(mb, 1)} MB → ${fmt(r.report.bytesOut / 1e6, 2)} MB`;
+  }
+  const peak = process.resourceUsage().maxRSS * 1024; // kilobytes → bytes
+  const t = median(totals);
+  return [
+    `pipeline: ${fmt(mb, 1)} MB, 400 contours × 2,500 vertices, tolerance 0.05 mm; median of ${runs} runs`,
+    `  ${summary}`,
+    `  total ${fmt(t)} ms = ${fmt(mb / (t / 1000), 1)} MB/s; ` + Object.entries(stages).map(([s, v]) => `${s} ${fmt(median(v))} ms`).join(', '),
+    `  peak RSS ${fmt(peak / 1e6)} MB = ${fmt(peak / (mb * 1e6), 1)}× the input (process baseline before the runs: ${fmt(rss0 / 1e6)} MB)`,
+  ].join('\n');
+}
+
+if (import.meta.url === `file://${process.argv[1]}`) console.log(benchPipeline());
