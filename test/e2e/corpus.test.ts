@@ -43,6 +43,26 @@ const REFUSED: Readonly<Record<string, RegExp>> = {
 };
 
 /**
+ * Deliberately invalid inputs and the warning each must get (the documented
+ * treatment: keep the valid prefix, warn; S11 F.2, S2 §9.5.4, REFERENCES.md
+ * §2.3). That the prefix is kept is checked by the rendering comparison.
+ */
+const MUST_WARN: Readonly<Record<string, RegExp>> = {
+  'resvg/tests/shapes/path/A.svg': /path1.*must begin with M or m/,
+  'resvg/tests/shapes/path/invalid-data-in-L.svg': /path2.*path data error/,
+  'resvg/tests/shapes/path/missing-coordinate-in-L.svg': /path2.*path data error/,
+  'resvg/tests/shapes/path/negative-large-arc-flag-value.svg': /path2.*arc flag must be 0 or 1/,
+  'resvg/tests/shapes/path/negative-sweep-flag-value.svg': /path2.*arc flag must be 0 or 1/,
+  'resvg/tests/shapes/path/out-of-range-large-arc-flag-value.svg': /path2.*arc flag must be 0 or 1/,
+  'resvg/tests/shapes/path/out-of-range-sweep-flag-value.svg': /path2.*arc flag must be 0 or 1/,
+  'resvg/tests/shapes/polygon/ignore-odd-points.svg': /polygon1.*odd number of coordinates/,
+  'resvg/tests/shapes/polyline/ignore-odd-points.svg': /polyline1.*odd number of coordinates/,
+  'resvg/tests/shapes/polygon/stop-processing-on-invalid-data.svg': /polygon1.*the rest ignored/,
+  'resvg/tests/shapes/polyline/stop-processing-on-invalid-data.svg': /polyline1.*the rest ignored/,
+  'w3c-svg11/svg/paths-data-18-f.svg': /path data error/,
+};
+
+/**
  * Inputs that sharp/librsvg renders unlike the suite's reference PNG (a renderer
  * gap, not ours). For these the refitted output is compared with the reference
  * PNG instead of with librsvg's rendering of the input, and the reference
@@ -138,6 +158,8 @@ describe('corpus: refit at 0.05 mm renders like the input', () => {
       const refused = res.report.elements.filter((e) => e.keptReason?.startsWith('measured deviation'));
       expect(refused.map((e) => `${e.name}#${e.id}: ${e.keptReason}`), 'no refit may be refused for its measured deviation').toEqual([]);
       expect(res.report.totals.withinTolerance).toBe(true);
+      const warn = MUST_WARN[row.svg];
+      if (warn) expect(res.report.warnings.some((w) => warn.test(w)), `a warning matching ${warn}`).toBe(true);
       const rewritten = res.report.totals.rewritten;
       if (rewritten === 0) {
         expect(res.text === text, 'untouched file must be byte-identical').toBe(true);

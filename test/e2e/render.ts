@@ -8,7 +8,7 @@
  * transparent pixel, which carries no meaning, never counts as a difference.
  *
  * Scale facts measured on sharp 0.35 / librsvg 2.63 (common practice, checked
- * in this repository by test/e2e/corpus.test.ts): with `density: D` one user
+ * in this repository by test/e2e/render.test.ts): with `density: D` one user
  * unit of a root without physical size becomes D/72 px, while physical units
  * (mm, in) become D²/72 px per inch, i.e. CSS-correct relative to user units
  * only at D = 96. Callers therefore derive the px-per-mm of a rendering from
