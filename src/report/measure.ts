@@ -13,6 +13,10 @@ import type { Matrix } from '../svg/matrixTypes.js';
 import type { Deviation } from './types.js';
 import { samplePath, sampleCount, type SampledPath } from './sample.js';
 import { buildSegmentIndex, directedDistance } from './hausdorff.js';
+import { SegmentGrid } from './segmentGrid.js';
+
+/** Grids lent to every measurement in turn (synchronous use only), so steady state allocates no index. */
+const gridA = new SegmentGrid(), gridB = new SegmentGrid();
 
 /** Chord error and bisection resolution, as fractions of the tolerance. */
 const ERROR_FRACTION = 1 / 1000;
@@ -61,7 +65,7 @@ export function measureDeviation(
  * the worst spot in the written element's user units.
  */
 export function compareSampled(sa: SampledPath, sb: SampledPath, writtenToMm: Matrix, resolution: number): Deviation | null {
-  const ia = buildSegmentIndex(sa.polylines), ib = buildSegmentIndex(sb.polylines);
+  const ia = buildSegmentIndex(sa.polylines, gridA), ib = buildSegmentIndex(sb.polylines, gridB);
   if (ia === null || ib === null) return null;
   const slack = sa.errorBound + sb.errorBound;
   const ab = directedDistance(sa.polylines, sb.polylines, ib, resolution);

@@ -1,0 +1,219 @@
+/**
+ * Uniform grid over the segments of a shape, for exact nearest-segment
+ * queries in the report's distance bound (hausdorff.ts).
+ *
+ * Layout: `segs[4k..4k+3] = ax, ay, bx, by` (mm) is segment k, in polyline
+ * order (a one-point polyline is a zero-length segment). Cell (i, j) covers
+ * the points whose `cellX(x) = i`, `cellY(y) = j`; its segment ids are
+ * `items[start[c] .. start[c + 1] − 1]` with `c = j·nx + i`. A segment is
+ * listed in every cell its bounding box meets, so a box query over the cells
+ * of a square sees every segment that reaches into the square.
+ *
+ * Cell size: at least 2 mean segment lengths and 1/8 of the longest segment
+ * (each segment is listed in few cells), and large enough that there are at
+ * most about CELLS_PER_SEGMENT · n cells (memory and set-up stay linear).
+ * Why a grid and not an R-tree: the samples are short, evenly spaced chords,
+ * and a grid answers "every segment within u of p" with a few array reads
+ * and no allocation, where a tree walk allocates its queue and results.
+ */
+
+/** Euclidean distance from (px, py) to the segment (ax, ay)–(bx, by); a zero-length segment is a point. */
+export function distPointSegment(px: number, py: number, ax: number, ay: number, bx: number, by: number): number {
+  const dx = bx - ax, dy = by - ay;
+  let ex = px - ax, ey = py - ay;
+  const len2 = dx * dx + dy * dy;
+  if (len2 > 0) {
+    let t = (ex * dx + ey * dy) / len2;
+    if (t > 1) t = 1;
+    else if (t < 0) t = 0;
+    ex -= t * dx;
+    ey -= t * dy;
+  }
+  return Math.sqrt(ex * ex + ey * ey);
+}
+
+/** Upper limit on cells per segment (sets the smallest cell on compact shapes). */
+const CELLS_PER_SEGMENT = 16;
+/** Smallest cell, in mean segment lengths. */
+const MIN_CELL_LENGTHS = 2;
+
+/** Spatial index of a shape's segments (see the module header for the layout). */
+export class SegmentGrid {
+  /** ax, ay, bx, by per segment (mm). */
+  segs = new Float64Array(0);
+  /** Number of segments. */
+  count = 0;
+  /** mm, mean segment length. */
+  meanLength = 0;
+  /** mm, grid origin (lowest x and y of all segments) and cell size. */
+  x0 = 0; y0 = 0; cell = 1;
+  /** 1/cell, or 0 when the extent is not finite (then one cell holds everything). */
+  private inv = 0;
+  nx = 1; ny = 1;
+  private start = new Int32Array(2);
+  private items = new Int32Array(0);
+  /** Segment id of the last query's answer (−1 when the grid is empty). */
+  hit = -1;
+
+  /**
+   * Index the segments of `polylines` (mm, x,y pairs), reusing this grid's
+   * buffers. Returns false (and indexes nothing) when there are no points.
+   */
+  build(polylines: readonly Float64Array[]): boolean {
+    let count = 0;
+    for (const pl of polylines) {
+      const n = pl.length >> 1;
+      count += n === 1 ? 1 : Math.max(0, n - 1);
+    }
+    this.count = count;
+    if (count === 0) return false;
+    if (this.segs.length < 4 * count) this.segs = new Float64Array(4 * count + (count >> 1) * 4);
+    const segs = this.segs;
+    let k = 0, total = 0, longest = 0;
+    let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+    for (const pl of polylines) {
+      const n = pl.length >> 1;
+      if (n === 0) continue;
+      const last = n === 1 ? 1 : n - 1;
+      for (let i = 0; i < last; i++) {
+        const j = n === 1 ? 0 : i + 1;
+        const ax = pl[2 * i], ay = pl[2 * i + 1], bx = pl[2 * j], by = pl[2 * j + 1];
+        segs[k++] = ax; segs[k++] = ay; segs[k++] = bx; segs[k++] = by;
+        const dx = bx - ax, dy = by - ay, len = Math.sqrt(dx * dx + dy * dy);
+        total += len;
+        if (len > longest) longest = len;
+        if (ax < minX) minX = ax; if (ax > maxX) maxX = ax;
+        if (bx < minX) minX = bx; if (bx > maxX) maxX = bx;
+        if (ay < minY) minY = ay; if (ay > maxY) maxY = ay;
+        if (by < minY) minY = by; if (by > maxY) maxY = by;
+      }
+    }
+    this.meanLength = total / count;
+    const w = maxX - minX, h = maxY - minY;
+    let cell = Math.max(
+      Math.sqrt((w * h) / (CELLS_PER_SEGMENT * count)), (w + h) / (CELLS_PER_SEGMENT * count),
+      MIN_CELL_LENGTHS * this.meanLength, longest / 8,
+    );
+    this.x0 = minX;
+    this.y0 = minY;
+    if (!Number.isFinite(cell) || !Number.isFinite(w) || !Number.isFinite(h)) {
+      this.inv = 0; this.nx = 1; this.ny = 1; cell = Infinity; // degenerate: one cell, a plain scan
+    } else {
+      if (!(cell > 0)) cell = 1; // every point the same: any cell size works
+      this.inv = 1 / cell;
+      this.nx = Math.floor(w * this.inv) + 1;
+      this.ny = Math.floor(h * this.inv) + 1;
+    }
+    this.cell = cell;
+    const cells = this.nx * this.ny;
+    if (this.start.length < cells + 1) this.start = new Int32Array(cells + 1 + (cells >> 1));
+    const start = this.start;
+    start.fill(0, 0, cells + 1);
+    // Two passes: count per cell, then fill (start[c] ends as the first slot of cell c).
+    let listed = 0;
+    for (let s = 0; s < count; s++) {
+      const o = 4 * s;
+      const i0 = this.cellX(Math.min(segs[o], segs[o + 2])), i1 = this.cellX(Math.max(segs[o], segs[o + 2]));
+      const j0 = this.cellY(Math.min(segs[o + 1], segs[o + 3])), j1 = this.cellY(Math.max(segs[o + 1], segs[o + 3]));
+      for (let j = j0; j <= j1; j++) for (let i = i0; i <= i1; i++) start[j * this.nx + i + 1]++;
+      listed += (i1 - i0 + 1) * (j1 - j0 + 1);
+    }
+    for (let c = 0; c < cells; c++) start[c + 1] += start[c];
+    if (this.items.length < listed) this.items = new Int32Array(listed + (listed >> 1));
+    const items = this.items;
+    for (let s = 0; s < count; s++) {
+      const o = 4 * s;
+      const i0 = this.cellX(Math.min(segs[o], segs[o + 2])), i1 = this.cellX(Math.max(segs[o], segs[o + 2]));
+      const j0 = this.cellY(Math.min(segs[o + 1], segs[o + 3])), j1 = this.cellY(Math.max(segs[o + 1], segs[o + 3]));
+      for (let j = j0; j <= j1; j++) for (let i = i0; i <= i1; i++) items[start[j * this.nx + i]++] = s;
+    }
+    // The fill moved every start[c] to the end of cell c, i.e. the start of c + 1: shift back.
+    for (let c = cells; c > 0; c--) start[c] = start[c - 1];
+    start[0] = 0;
+    return true;
+  }
+
+  /** Column of x, clamped to the grid (monotone in x, the same formula for building and queries). */
+  cellX(x: number): number {
+    const i = Math.floor((x - this.x0) * this.inv);
+    return i < 0 ? 0 : i >= this.nx ? this.nx - 1 : i | 0; // NaN → 0 via `| 0`
+  }
+
+  /** Row of y, clamped to the grid. */
+  cellY(y: number): number {
+    const j = Math.floor((y - this.y0) * this.inv);
+    return j < 0 ? 0 : j >= this.ny ? this.ny - 1 : j | 0;
+  }
+
+  /** mm, distance from (px, py) to segment k. */
+  distTo(px: number, py: number, k: number): number {
+    const s = this.segs, o = 4 * k;
+    return distPointSegment(px, py, s[o], s[o + 1], s[o + 2], s[o + 3]);
+  }
+
+  /**
+   * Exact distance (mm) from (px, py) to the nearest segment, given a segment
+   * `hint` that is probably near (its distance u bounds the answer, so only the
+   * cells meeting the square of half-side u are read). Sets `hit`.
+   */
+  nearestFrom(px: number, py: number, hint: number): number {
+    let best = this.distTo(px, py, hint);
+    this.hit = hint;
+    if (best === 0) return 0;
+    // Any segment closer than u has a point in the square, hence is listed in a cell meeting it;
+    // the margin covers rounding in the distance and cell formulas.
+    const u = best * (1 + 1e-9) + this.cell * 1e-9;
+    const i0 = this.cellX(px - u), i1 = this.cellX(px + u), j0 = this.cellY(py - u), j1 = this.cellY(py + u);
+    const segs = this.segs, items = this.items, start = this.start, nx = this.nx;
+    for (let j = j0; j <= j1; j++) {
+      for (let i = i0; i <= i1; i++) {
+        const c = j * nx + i;
+        for (let t = start[c], e = start[c + 1]; t < e; t++) {
+          const o = 4 * items[t];
+          const d = distPointSegment(px, py, segs[o], segs[o + 1], segs[o + 2], segs[o + 3]);
+          if (d < best) { best = d; this.hit = items[t]; }
+        }
+      }
+    }
+    return best;
+  }
+
+  /**
+   * Exact distance (mm) from (px, py) to the nearest segment with no hint:
+   * rings of cells around p's (clamped) cell until the unread cells are all
+   * farther than the best found. Sets `hit`.
+   */
+  nearest(px: number, py: number): number {
+    const ci = this.cellX(px), cj = this.cellY(py), nx = this.nx, ny = this.ny;
+    const segs = this.segs, items = this.items, start = this.start;
+    const margin = this.cell * 1e-9;
+    let best = Infinity;
+    this.hit = -1;
+    for (let r = 0; ; r++) {
+      const i0 = ci - r, i1 = ci + r, j0 = cj - r, j1 = cj + r;
+      if (i0 < 0 && j0 < 0 && i1 >= nx && j1 >= ny) break; // the ring lies outside: all read
+      const ia = i0 < 0 ? 0 : i0, ib = i1 >= nx ? nx - 1 : i1;
+      const ja = j0 < 0 ? 0 : j0, jb = j1 >= ny ? ny - 1 : j1;
+      for (let j = ja; j <= jb; j++) {
+        const edgeRow = j === j0 || j === j1;
+        for (let i = ia; i <= ib; i++) {
+          if (!edgeRow && i !== i0 && i !== i1) { i = i1 - 1; continue; } // inner cells were read before
+          const c = j * nx + i;
+          for (let t = start[c], e = start[c + 1]; t < e; t++) {
+            const o = 4 * items[t];
+            const d = distPointSegment(px, py, segs[o], segs[o + 1], segs[o + 2], segs[o + 3]);
+            if (d < best) { best = d; this.hit = items[t]; }
+          }
+        }
+      }
+      // Every unread cell lies beyond one of the block's inner sides: bound its distance from p.
+      let lb = Infinity;
+      if (i0 > 0) lb = Math.min(lb, px - (this.x0 + i0 * this.cell));
+      if (i1 < nx - 1) lb = Math.min(lb, this.x0 + (i1 + 1) * this.cell - px);
+      if (j0 > 0) lb = Math.min(lb, py - (this.y0 + j0 * this.cell));
+      if (j1 < ny - 1) lb = Math.min(lb, this.y0 + (j1 + 1) * this.cell - py);
+      if (lb === Infinity || best <= lb - margin) break;
+    }
+    return best;
+  }
+}
