@@ -46,6 +46,8 @@ export interface SearchResult {
 const MAX_FAILS = 3;
 /** Candidates kept per knot vertex (different tangents). */
 const PER_KNOT = 2;
+/** Candidates expanded per level, as a multiple of the beam width (each is ranked by its own reach). */
+const CANDIDATES = 2;
 
 /** How a search must end. */
 export type SearchEnd =
@@ -227,7 +229,7 @@ export function searchSpline(p: SearchParams): SearchResult {
     let cand: Node[] = [];
     for (const list of byKnot.values()) for (const c of list) cand.push(c);
     cand.sort((u, v) => v.a - u.a || u.err - v.err);
-    if (cand.length > 2 * p.width) cand = cand.slice(0, 2 * p.width);
+    if (cand.length > CANDIDATES * p.width) cand = cand.slice(0, Math.ceil(CANDIDATES * p.width));
     for (const c of cand) expand(c, p, onTerminal);
     cand.sort((u, v) => v.reach - u.reach || v.a - u.a || u.err - v.err);
     frontier = cand.slice(0, p.width);
