@@ -6,7 +6,9 @@
  */
 import { Command, InvalidArgumentError, Option } from 'commander';
 import { DEFAULT_OPTIONS, OPTION_DOCS, OptionError, parseToleranceText, resolveOptions, type Options } from '../options.js';
+import { availableParallelism } from 'node:os';
 import { VERSION } from '../version.js';
+import { DEFAULT_WORKER_MEMORY_MB } from './pool.js';
 
 /** The flag that sets each library option (every option has exactly one). */
 export const OPTION_FLAGS: Readonly<Record<keyof Options, string>> = Object.freeze({
@@ -39,6 +41,12 @@ export interface CliFlags {
   backup: boolean;
   quiet: boolean;
   debug: boolean;
+  /** `--report-lines` value: a path, `-` for standard output, or undefined. */
+  reportLines?: string;
+  /** `--jobs`: files refitted at once in a batch (≥ 1), or undefined for one per core. */
+  jobs?: number;
+  /** `--worker-memory`: heap limit per batch worker in MB, or undefined for the default. */
+  workerMemoryMb?: number;
 }
 
 /** Everything the command line says: inputs, command flags and the library's options. */
@@ -94,6 +102,12 @@ function parseNumber(text: string, what: string): number {
   return Number(text);
 }
 
+function parseCount(text: string, what: string, min: number): number {
+  const v = parseNumber(text, what);
+  if (!Number.isInteger(v) || v < min) throw new InvalidArgumentError(`"${text}" is not a whole number of ${what} from ${min} up`);
+  return v;
+}
+
 const PARSERS: Readonly<Partial<Record<keyof Options, (text: string) => unknown>>> = Object.freeze({
   tolerance: parseTolerance,
   cornerAngle: (t: string) => validated('cornerAngle', parseNumber(t, 'degrees')),
@@ -123,9 +137,12 @@ function optionHelp(key: keyof Options): string {
 export function buildProgram(out: ProgramOutput, afterHelp: string): Command {
   const program = new Command('arcspline')
     .description('Refit the curves of an SVG cut or plot file with the fewest circular arcs and lines within a tolerance, and report the measured deviation.')
-    .argument('<input...>', 'SVG file to refit, or - for standard input (several files only with --in-place)')
-    .option('-o, --output <file>', 'write the refitted SVG here; - is standard output (see "Output" below)')
-    .option('--report <file>', 'write the deviation report as JSON here; - is standard output');
+    .argument('<input...>', 'SVG file to refit, or - for standard input; or, for a batch, several files, directories (searched for *.svg) and quoted patterns such as "in/**/*.svg"')
+    .option('-o, --output <file>', 'write the refitted SVG here; - is standard output; for a batch, the output directory (see "Output" and "Batches" below)')
+    .option('--report <file>', 'write the deviation report as JSON here; - is standard output (one file only)')
+    .option('--report-lines <file>', 'write one JSON line per file as it finishes (the report of --report, or an error); - is standard output')
+    .option('-j, --jobs <n>', `files refitted at once in a batch (default: one per core, here ${availableParallelism()})`, (t: string) => parseCount(t, 'jobs', 1))
+    .option('--worker-memory <MB>', `heap limit of each batch worker (default: ${DEFAULT_WORKER_MEMORY_MB} MB; larger files are refused before reading)`, (t: string) => parseCount(t, 'MB', 64));
   for (const key of Object.keys(OPTION_FLAGS) as (keyof Options)[]) {
     const opt = new Option(OPTION_FLAGS[key], optionHelp(key));
     const parse = PARSERS[key];
@@ -135,7 +152,7 @@ export function buildProgram(out: ProgramOutput, afterHelp: string): Command {
   program
     .option('--in-place', 'rewrite each input file itself, keeping a backup FILE.bak')
     .option('--no-backup', 'with --in-place, keep no FILE.bak')
-    .option('-q, --quiet', 'print no summary line (warnings and errors still go to standard error)')
+    .option('-q, --quiet', 'print no summary line, table or progress bar (warnings and errors still go to standard error)')
     .option('--debug', 'print the stack of an internal error')
     .version(VERSION, '-V, --version', 'print the version')
     .helpOption('-h, --help', 'show this help')
@@ -170,6 +187,9 @@ export function parsedArgs(program: Command): ParsedArgs {
       backup: o.backup !== false,
       quiet: o.quiet === true,
       debug: o.debug === true,
+      reportLines: o.reportLines as string | undefined,
+      jobs: o.jobs as number | undefined,
+      workerMemoryMb: o.workerMemory as number | undefined,
     },
     options,
   };

@@ -2,8 +2,10 @@
  * `arcspline` as a function: maps the command line onto the library's options,
  * does every file read and write, prints the summary, and returns the exit
  * code. Testable in-process with fake streams; bin/arcspline.js is only a
- * shell around it. The geometry work is the pure `refitSvg` (src/refit.ts).
+ * shell around it. Several inputs, directories and patterns go to the batch
+ * path (./batch.ts). The geometry work is the pure `refitSvg` (src/refit.ts).
  */
+import { stat } from 'node:fs/promises';
 import { resolve as resolvePath } from 'node:path';
 import type { Readable, Writable } from 'node:stream';
 import { CommanderError } from 'commander';
@@ -11,12 +13,15 @@ import { OptionError, resolveOptions, type Options } from '../options.js';
 import { refitSvg } from '../refit.js';
 import { SvgInputError } from '../svg/errors.js';
 import { buildProgram, parsedArgs, type CliFlags, type ParsedArgs } from './args.js';
-import { EXIT_INTERNAL, EXIT_OK, EXIT_TOLERANCE, EXIT_USAGE, UsageError } from './exitCodes.js';
+import { EXIT_INTERNAL, EXIT_INTERRUPTED, EXIT_OK, EXIT_TOLERANCE, EXIT_USAGE, UsageError } from './exitCodes.js';
+import { runBatch } from './batch.js';
+import { isGlobPattern } from './inputs.js';
+import { failedLine, ReportLineSink } from './reportLines.js';
 import { afterHelpText } from './help.js';
 import { asUsageError, decodeSvgBytes, exists, readInputBytes, sameFile, stageFile, writeToStream, type StagedFile } from './io.js';
 import { choosePaint, problemLines, summaryLine, type Paint } from './summary.js';
 
-export { EXIT_INTERNAL, EXIT_OK, EXIT_TOLERANCE, EXIT_USAGE } from './exitCodes.js';
+export { EXIT_INTERNAL, EXIT_INTERRUPTED, EXIT_OK, EXIT_TOLERANCE, EXIT_USAGE } from './exitCodes.js';
 
 /** The streams and environment of one run; every field defaults to the process's own. */
 export interface Io {
@@ -27,8 +32,15 @@ export interface Io {
   isTTY?: boolean;
   /** Whether standard error is a terminal (colour); default: the stream's own `isTTY`. */
   stderrIsTTY?: boolean;
-  /** Environment variables (NO_COLOR); default `process.env`. */
+  /** Environment variables (NO_COLOR, CI); default `process.env`. */
   env?: Record<string, string | undefined>;
+  /**
+   * Aborting it interrupts a batch. Default: with the process's own streams,
+   * the first SIGINT interrupts the batch cleanly and a second one exits at once.
+   */
+  signal?: AbortSignal;
+  /** Run a batch on the calling thread instead of worker threads. */
+  inProcess?: boolean;
 }
 
 /** The process's own streams. */
@@ -64,16 +76,28 @@ export async function main(argv: string[], io: Io = processIo()): Promise<number
   const paint = choosePaint(io.stderrIsTTY ?? ttyOf(io.stderr), io.env ?? process.env);
   try {
     const options = checkOptions(args.options);
+    if (await isBatch(args)) return await batchCommand(args, options, io);
     await checkCombination(args, io);
+    const lines = args.flags.reportLines === undefined ? null : await ReportLineSink.open(args.flags.reportLines, io.stdout);
     let code = EXIT_OK;
-    for (const input of args.inputs) {
-      try {
-        code = Math.max(code, await refitFile(input, args.flags, options, io, paint));
-      } catch (e) {
-        if (!isUserError(e)) throw e;
-        err(`arcspline: ${paint.red(oneLine(userMessage(e, input)))}`);
-        code = Math.max(code, EXIT_USAGE);
+    try {
+      for (const input of args.inputs) {
+        try {
+          code = Math.max(code, await refitFile(input, args.flags, options, io, paint, lines));
+        } catch (e) {
+          if (!isUserError(e)) throw e;
+          const msg = oneLine(userMessage(e, input));
+          err(`arcspline: ${paint.red(msg)}`);
+          await lines?.write(failedLine(displayName(input), resolveOptions(options).tolerance, EXIT_USAGE, msg));
+          code = Math.max(code, EXIT_USAGE);
+        }
       }
+    } finally {
+      await lines?.close();
+    }
+    if (lines?.failure) {
+      err(`arcspline: ${paint.red(lines.failure)}`);
+      code = Math.max(code, EXIT_USAGE);
     }
     return code;
   } catch (e) {
@@ -136,6 +160,16 @@ async function checkCombination(args: ParsedArgs, io: Io): Promise<void> {
   if (out !== undefined && out !== STDIO && input !== STDIO && (resolvePath(out) === resolvePath(input) || (await sameFile(out, input)))) {
     throw new UsageError(`output ${out} is the input file; arcspline never overwrites its input unless --in-place is given`);
   }
+  if (svgToStdout && flags.reportLines === STDIO) {
+    throw new UsageError('the SVG and the report lines cannot both go to standard output; write the SVG to a file with -o FILE, or the lines with --report-lines FILE');
+  }
+  if (flags.report === STDIO && flags.reportLines === STDIO) throw new UsageError('--report and --report-lines cannot both go to standard output');
+  const rl = flags.reportLines;
+  if (rl !== undefined && rl !== STDIO) {
+    for (const i of inputs) {
+      if (i !== STDIO && (resolvePath(rl) === resolvePath(i) || (await sameFile(rl, i)))) throw new UsageError(`--report-lines ${rl} is the input file; choose another path`);
+    }
+  }
   const rep = flags.report;
   if (rep !== undefined && rep !== STDIO) {
     for (const i of inputs) {
@@ -147,8 +181,52 @@ async function checkCombination(args: ParsedArgs, io: Io): Promise<void> {
   }
 }
 
+/**
+ * Whether the command is a batch: several inputs, a directory, a pattern that
+ * names no existing file, or one file with `-o` naming an existing directory.
+ */
+async function isBatch(args: ParsedArgs): Promise<boolean> {
+  const { inputs, flags } = args;
+  if (inputs.length > 1) return true;
+  const input = inputs[0];
+  if (input === STDIO) return false;
+  const st = await stat(input).catch(() => null);
+  if (st?.isDirectory()) return true;
+  if (st === null && isGlobPattern(input)) return true;
+  if (!flags.inPlace && flags.output !== undefined && flags.output !== STDIO) return (await stat(flags.output).catch(() => null))?.isDirectory() === true;
+  return false;
+}
+
+/** Check the flags a batch cannot take, hook SIGINT, and run it (./batch.ts). */
+async function batchCommand(args: ParsedArgs, options: Partial<Options>, io: Io): Promise<number> {
+  const { flags } = args;
+  if (flags.inPlace && flags.output !== undefined) throw new UsageError('--in-place and -o cannot be combined (--in-place writes each input file itself)');
+  if (flags.report !== undefined) throw new UsageError('--report writes the report of one file; for a batch give --report-lines FILE (one JSON line per file)');
+  let signal = io.signal;
+  let dispose = (): void => undefined;
+  if (signal === undefined && io.stderr === process.stderr) {
+    const ac = new AbortController();
+    const onInt = (): void => {
+      // A second Ctrl-C means now.
+      if (ac.signal.aborted) process.exit(EXIT_INTERRUPTED);
+      ac.abort();
+    };
+    process.on('SIGINT', onInt);
+    dispose = () => void process.off('SIGINT', onInt);
+    signal = ac.signal;
+  }
+  try {
+    return await runBatch(args.inputs, flags, options, {
+      stdout: io.stdout, stderr: io.stderr, stderrIsTTY: io.stderrIsTTY ?? ttyOf(io.stderr), env: io.env ?? process.env,
+      signal, inProcess: io.inProcess,
+    });
+  } finally {
+    dispose();
+  }
+}
+
 /** Read, refit and write one input; returns EXIT_OK or EXIT_TOLERANCE. Throws user errors. */
-async function refitFile(input: string, flags: CliFlags, options: Partial<Options>, io: Io, paint: Paint): Promise<number> {
+async function refitFile(input: string, flags: CliFlags, options: Partial<Options>, io: Io, paint: Paint, lines: ReportLineSink | null): Promise<number> {
   const name = displayName(input);
   const bytes = await readInputBytes(input === STDIO ? null : input, io.stdin, name);
   const text = decodeSvgBytes(bytes, name);
@@ -186,5 +264,6 @@ async function refitFile(input: string, flags: CliFlags, options: Partial<Option
   const err = (line: string): void => void io.stderr.write(`${line}\n`);
   if (!flags.quiet) err(summaryLine(name, result.report, paint));
   for (const line of problemLines(name, result.report, paint)) err(line);
+  await lines?.write(result.report);
   return result.report.totals.withinTolerance ? EXIT_OK : EXIT_TOLERANCE;
 }
