@@ -46,6 +46,20 @@ describe('report schema', () => {
     }
   });
 
+  it('describes every field (the schema is the users\' documentation)', () => {
+    const missing: string[] = [];
+    const walk = (node: Record<string, unknown>, where: string): void => {
+      const props = node.properties as Record<string, Record<string, unknown>> | undefined;
+      for (const [k, v] of Object.entries(props ?? {})) {
+        if (typeof v.description !== 'string' || v.description.length < 8) missing.push(`${where}.${k}`);
+        walk(v, `${where}.${k}`);
+      }
+    };
+    walk(schema, '');
+    for (const [k, v] of Object.entries(schema.$defs as Record<string, Record<string, unknown>>)) walk(v, `#${k}`);
+    expect(missing).toEqual([]);
+  });
+
   it('rejects a report with a field removed', () => {
     const r = asJson(bracket) as Record<string, unknown>;
     delete r.toleranceMm;
