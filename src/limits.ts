@@ -1,0 +1,58 @@
+/**
+ * Input-size limits, checked before any parsing, so an oversized file is
+ * refused up front with a message that says how to raise the limit rather
+ * than running the machine out of memory half way.
+ *
+ * The default is set from a measurement (docs/ROBUSTNESS.md): peak memory
+ * of refitSvg grows roughly linearly with the input; 256 MiB of SVG stays
+ * within the memory of an ordinary workstation only for simple geometry,
+ * so the limit is a guard against accidents, not a promise that any file
+ * below it fits. The XML reader has its own character cap
+ * (XML_LIMITS.maxInputChars in src/svg/xmlSafety.ts, also 256 Mi).
+ */
+import { SvgInputError } from './svg/errors.js';
+
+/** Size caps applied to a whole input. */
+export interface InputLimits {
+  /** Largest input accepted, bytes (as read from the file, before decoding). */
+  maxInputBytes: number;
+}
+
+/** Defaults: 256 MiB, the same figure as the XML reader's character cap. */
+export const DEFAULT_LIMITS: Readonly<InputLimits> = Object.freeze({
+  maxInputBytes: 256 * 2 ** 20,
+});
+
+/** "256 MiB", "1.5 GiB", "900 bytes": for messages. */
+export function formatBytes(n: number): string {
+  if (n >= 2 ** 30) return `${+(n / 2 ** 30).toFixed(2)} GiB`;
+  if (n >= 2 ** 20) return `${+(n / 2 ** 20).toFixed(2)} MiB`;
+  if (n >= 2 ** 10) return `${+(n / 2 ** 10).toFixed(2)} KiB`;
+  return `${n} bytes`;
+}
+
+/**
+ * Refuse an input larger than `limits.maxInputBytes`.
+ * @param bytes size of the input in bytes (e.g. from `stat`, so nothing needs to be read first)
+ * @param limits caps; missing fields take DEFAULT_LIMITS (with `??`, so 0 is a real limit)
+ * @param name names the input in the message (a file name), or null
+ * @throws SvgInputError with a one-line message naming the size, the limit and how to raise it
+ * @throws RangeError when `bytes` or the limit is not a non-negative number
+ */
+export function checkInputSize(bytes: number, limits: Partial<InputLimits> = {}, name: string | null = null): void {
+  const max = limits.maxInputBytes ?? DEFAULT_LIMITS.maxInputBytes;
+  if (!(bytes >= 0) || !Number.isFinite(bytes)) throw new RangeError(`input size must be a non-negative number of bytes, got ${bytes}`);
+  if (!(max >= 0)) throw new RangeError(`maxInputBytes must be a non-negative number, got ${max}`);
+  if (bytes > max) {
+    throw new SvgInputError(
+      `${name === null ? 'input' : name} is too large: ${formatBytes(bytes)} (${bytes} bytes), limit ${formatBytes(max)}; ` +
+      `raise it with the maxInputBytes limit if the machine has the memory (about ${MEMORY_PER_INPUT_BYTE} bytes of memory per input byte were measured)`,
+    );
+  }
+}
+
+/**
+ * Measured peak resident memory of refitSvg per byte of input, rounded up
+ * (docs/ROBUSTNESS.md, generated curve-heavy file of about 50 MiB).
+ */
+export const MEMORY_PER_INPUT_BYTE = 40;
