@@ -81,7 +81,8 @@ export function arcToCenterInto(
   const cosP = Math.cos(phi), sinP = Math.sin(phi);
 
   // Step 1 (F.6.5.1): midpoint-centred, rotated by −φ.
-  const hx = (x1 - x2) / 2, hy = (y1 - y2) / 2;
+  // Halve before subtracting: (1e308 − −1e308) / 2 would overflow.
+  const hx = x1 / 2 - x2 / 2, hy = y1 / 2 - y2 / 2;
   const x1p = cosP * hx + sinP * hy;
   const y1p = -sinP * hx + cosP * hy;
 
@@ -102,12 +103,14 @@ export function arcToCenterInto(
     k = Math.sqrt((1 - L) * (1 + L)) / L;
     if (largeArc === sweep) k = -k;
   }
-  const cxp = (k * rx * y1p) / ry;
-  const cyp = (-k * ry * x1p) / rx;
+  // k·(y1'/ry) and k·(x1'/rx) are at most 1 in size (|y1'/ry| ≤ Λ^½, k ≤ √(1−Λ)/Λ^½),
+  // so this order cannot overflow where k·rx·y1' would (radii near 1e308).
+  const cxp = k === 0 ? 0 : k * (y1p / ry) * rx;
+  const cyp = k === 0 ? 0 : -k * (x1p / rx) * ry;
 
   // Step 3 (F.6.5.3).
-  const cx = cosP * cxp - sinP * cyp + (x1 + x2) / 2;
-  const cy = sinP * cxp + cosP * cyp + (y1 + y2) / 2;
+  const cx = cosP * cxp - sinP * cyp + (x1 / 2 + x2 / 2);
+  const cy = sinP * cxp + cosP * cyp + (y1 / 2 + y2 / 2);
 
   // Step 4 (F.6.5.4–6) with atan2 instead of ±acos.
   const ux = (x1p - cxp) / rx, uy = (y1p - cyp) / ry;
