@@ -51,6 +51,18 @@ const MAX_ARC_STEP = Math.PI / 2;
 
 const NONE = 0, STRAIGHT = 1, CURVED = 2;
 
+/**
+ * Largest vertex coordinate accepted, as a multiple of maxError (2^40). A
+ * vertex is evaluated with a few roundings of 2^-53 × its size; at 2^40 ×
+ * maxError that is about maxError / 2000, so the proven bound still holds to
+ * within 0.05 %. Larger (or non-finite) coordinates are refused: past that,
+ * the differences the fitter and the report take can lose all precision or
+ * overflow (1e308 - -1e308 = Infinity).
+ */
+export const COORD_LIMIT_FACTOR = 2 ** 40;
+/** The current call's coordinate limit, mm (set by flattenPath). */
+let limit = Infinity;
+
 // Growing scratch buffers shared by all calls (single-threaded); each contour
 // is copied out with slice().
 let xy = new Float64Array(4096);
@@ -64,6 +76,10 @@ let bound = 0;
 const arc = new Float64Array(ARC_CENTER_LENGTH);
 
 function push(x: number, y: number): void {
+  // Written so that NaN fails too.
+  if (!(Math.abs(x) <= limit && Math.abs(y) <= limit)) {
+    throw new RangeError(`a point maps to (${x}, ${y}) mm, beyond ±${limit.toPrecision(3)} mm, where double precision cannot keep the tolerance`);
+  }
   if (len > 0 && xy[len - 2] === x && xy[len - 1] === y) return;
   if (len + 2 > xy.length) {
     const next = new Float64Array(xy.length * 2);
@@ -145,12 +161,14 @@ function finish(out: Contour[], closed: boolean, stats: FlattenStats | undefined
  * @param maxError largest allowed distance between the mapped curve and the polyline, mm, > 0
  * @param stats optional; receives the bound actually achieved per contour
  * @returns one contour per subpath that has at least two distinct vertices
- * @throws RangeError for a non-positive maxError, an unknown opcode, or a curve that would need more than MAX_CURVE_STEPS vertices
+ * @throws RangeError for a non-positive maxError, an unknown opcode, a curve that would need more than MAX_CURVE_STEPS vertices,
+ *   or a vertex that is not finite or lies farther than COORD_LIMIT_FACTOR × maxError from the origin
  */
 export function flattenPath(p: PathData, toMm: Matrix, maxError: number, stats?: FlattenStats): Contour[] {
   if (!(maxError > 0) || !Number.isFinite(maxError)) {
     throw new RangeError(`maxError must be a positive number of mm, got ${maxError}`);
   }
+  limit = maxError * COORD_LIMIT_FACTOR;
   const ma = toMm[0], mb = toMm[1], mc = toMm[2], md = toMm[3], me = toMm[4], mf = toMm[5];
   const ops = p.ops, args = p.args;
   const out: Contour[] = [];
