@@ -16,8 +16,8 @@ import { readSvg, type GeometryElement, type SvgDocument } from './svg/document.
 import { parsePathData } from './svg/pathData.js';
 import { shapeToPath, type ShapeName } from './svg/shapes.js';
 import { parseTransform } from './svg/transform.js';
-import { invert, maxScale, multiply } from './svg/matrix.js';
-import { OP_A, OP_C, OP_Q, type ParsedPath, type PathData } from './svg/pathTypes.js';
+import { applyX, applyY, invert, maxScale, multiply } from './svg/matrix.js';
+import { OP_A, OP_ARGS, OP_C, OP_M, OP_Q, type ParsedPath, type PathData } from './svg/pathTypes.js';
 import type { Matrix } from './svg/matrixTypes.js';
 import { flattenPath } from './geom/flatten.js';
 import type { Contour } from './geom/contour.js';
@@ -181,6 +181,12 @@ function refitElement(doc: SvgDocument, el: GeometryElement, opts: Options, time
   t = now();
   const sink = new PathWriter({ digits });
   const stats = emitSegments(sink, fitted, mmToLocal, { digits });
+  // Subpaths that draw a single point (a pierce mark such as `M x y Z`) have no contour; keep them as points.
+  for (const [x, y] of pointSubpaths(p)) {
+    const mx = applyX(el.toMm, x, y), my = applyY(el.toMm, x, y);
+    sink.moveTo(applyX(mmToLocal, mx, my), applyY(mmToLocal, mx, my));
+    sink.closePath();
+  }
   const d = sink.toString();
   times.write += now() - t;
   report.segmentsAfter = { arcs: stats.arcs, lines: stats.lines };
@@ -207,6 +213,35 @@ function refitElement(doc: SvgDocument, el: GeometryElement, opts: Options, time
   }
   report.kept = false;
   return { report, edits: elementEdits(doc, el, d, opts) };
+}
+
+/** Start points of subpaths that draw something but never leave their start point. */
+function pointSubpaths(p: PathData): [number, number][] {
+  const out: [number, number][] = [];
+  let sx = 0, sy = 0, draws = false, still = true, open = false;
+  const finish = (): void => {
+    if (open && draws && still) out.push([sx, sy]);
+  };
+  let j = 0;
+  for (let i = 0; i < p.ops.length; i++) {
+    const op = p.ops[i], n = OP_ARGS[op];
+    if (op === OP_M) {
+      finish();
+      sx = p.args[j];
+      sy = p.args[j + 1];
+      draws = false;
+      still = true;
+      open = true;
+    } else {
+      draws = true;
+      // Every point the segment names (control points too; an arc's radii and flags are not points).
+      const first = op === OP_A ? 5 : 0;
+      for (let k = first; k + 1 < n; k += 2) if (p.args[j + k] !== sx || p.args[j + k + 1] !== sy) still = false;
+    }
+    j += n;
+  }
+  finish();
+  return out;
 }
 
 /** Lines a controller needs to follow the contour within the tolerance (vertex-subset polyline). */

@@ -70,9 +70,11 @@ export function fitPolyline(xy: Float64Array, opts: FitOptions): FitResult {
     // The walk came back to vertex 0 (or to a copy of it): do not keep it twice.
     while (coarseIdx.length > 1 && xy[2 * coarseIdx[coarseIdx.length - 1]] === xy[0] && xy[2 * coarseIdx[coarseIdx.length - 1] + 1] === xy[1]) coarseIdx.pop();
   }
+  if (coarseIdx.length < 2) return { segments: [], corners: [], breaks: 0 };
+  // A closed contour of two distinct vertices runs out and back: fit it open, back to its start.
+  if (closedIn && coarseIdx.length === 2) coarseIdx.push(coarseIdx[0]);
   const mc = coarseIdx.length;
-  if (mc < 2) return { segments: [], corners: [], breaks: 0 };
-  const closed = closedIn && mc >= 3;
+  const closed = closedIn && mc >= 3 && coarseIdx[mc - 1] !== coarseIdx[0];
   // The fitter works in a local frame at the first vertex (keeps precision far from the origin).
   const ox = xy[0], oy = xy[1];
   const cxy = new Float64Array(2 * mc);

@@ -75,16 +75,10 @@ const LIBRSVG_DIFFERS: Readonly<Record<string, string>> = {
 };
 
 /** Pipeline bugs found by this test, marked it.fails until fixed (the reason is printed). */
-const KNOWN_FAILURES: Readonly<Record<string, string>> = {
-  // d="M 30 40 L 100 150 M 180 30 Z": flattenPath drops the one-point subpath "M 180 30 Z", the
-  // measure still samples it, so the refit is refused at 34.9 mm and totals.withinTolerance is false.
-  'resvg/tests/shapes/path/M-L-M-Z.svg': 'one-point subpath dropped by the flattener but measured: refit refused, withinTolerance false',
-  // path#Line_MCZ d="M80 170 C100 170 160 170 180 170Z" (a closed, straight out-and-back contour):
-  // fitPolyline returns one line i0=0 → i1=last and no segment back to the start; the text written
-  // is "M80 170Z", so the refit is refused at 26.5 mm. Regression of commit 28e6598 (543af2a still
-  // returns the closing line): fitPolyline([0,0, 10,0, 20,0], closed) gives one line 0→2 only.
-  'w3c-svg11/svg/paths-data-01-t.svg': 'closed straight out-and-back contour written as "M80 170Z": refit refused at 26.5 mm',
-};
+// Pipeline bugs found by this corpus, marked so the suite stays honest; none open now
+// (fixed: one-point subpaths such as "M 180 30 Z" are kept as points; a closed out-and-back
+// contour such as "M80 170 C100 170 160 170 180 170Z" keeps its way back).
+const KNOWN_FAILURES: Readonly<Record<string, string>> = {};
 
 interface Row { svg: string; png: string; group: string; title: string }
 
