@@ -35,3 +35,4 @@ export function benchPipeline(runs = 3): string {
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) console.log(benchPipeline());
+

@@ -4,8 +4,9 @@
  * compare ratios run in the same process, not single timings (shared machines).
  */
 import { cpus } from 'node:os';
+import { execFileSync } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
 import { benchFit } from './fit.js';
-import { benchPipeline } from './pipeline.js';
 
 const optional = async (path: string, name: string): Promise<string | null> => {
   try {
@@ -19,7 +20,9 @@ const optional = async (path: string, name: string): Promise<string | null> => {
 console.log(`arcspline benchmarks on ${cpus().length} × ${cpus()[0]?.model ?? 'unknown CPU'}, Node ${process.version}\n`);
 console.log(benchFit());
 console.log('');
-console.log(benchPipeline());
+// The pipeline runs in a fresh process so its peak memory is its own.
+const pipeline = fileURLToPath(new URL('./pipeline.ts', import.meta.url));
+console.log(execFileSync(process.execPath, ['--import', 'tsx', pipeline], { encoding: 'utf8', maxBuffer: 1 << 24 }).trimEnd());
 for (const [path, name] of [['./measure.js', 'benchMeasure'], ['./batch.js', 'benchBatch']] as const) {
   const out = await optional(path, name);
   if (out) console.log(`\n${out}`);
