@@ -76,16 +76,22 @@ export async function planJobs(files: readonly InputFile[], flags: PlanFlags): P
       if (other) throw new UsageError(`${other.path} and ${j.file.path} would both be written to ${j.out}; give them separate batches`);
       byOut.set(key, j.file);
     }
-    const inputs = new Set(realIn);
+    const overwrite = (j: Job, input: string): UsageError =>
+      new UsageError(`output ${j.out} would overwrite the input ${input}; choose an output directory outside the inputs, or give --in-place`);
+    const realOut = jobs.map((j) => join(realDir, ...j.file.rel.split('/')));
+    // Most telling first: a file written over itself (output directory = input directory).
     for (let i = 0; i < jobs.length; i++) {
-      const j = jobs[i];
-      const realOut = join(realDir, ...j.file.rel.split('/'));
-      if (inputs.has(realOut) || (await sameFile(j.out, j.file.path))) {
-        throw new UsageError(`output ${j.out} would overwrite the input ${j.file.path}; choose an output directory outside the inputs, or give --in-place`);
-      }
+      if (realOut[i] === realIn[i] || (await sameFile(jobs[i].out, jobs[i].file.path))) throw overwrite(jobs[i], jobs[i].file.path);
+    }
+    for (let i = 0; i < jobs.length; i++) {
       if (inside(realIn[i], realDir)) {
-        throw new UsageError(`input ${j.file.path} is inside the output directory ${dir}; choose an output directory outside the inputs, or give --in-place`);
+        throw new UsageError(`input ${jobs[i].file.path} is inside the output directory ${dir}; choose an output directory outside the inputs, or give --in-place`);
       }
+    }
+    const byReal = new Map(realIn.map((r, i) => [r, files[i].path]));
+    for (let i = 0; i < jobs.length; i++) {
+      const other = byReal.get(realOut[i]);
+      if (other !== undefined) throw overwrite(jobs[i], other);
     }
   }
   const rl = flags.reportLines;

@@ -1,0 +1,77 @@
+/**
+ * arcspline as a library (`import { refitSvg } from 'arcspline'`): the same
+ * pure functions the command runs, with the same options object.
+ *
+ * ```js
+ * import { readFile, writeFile } from 'node:fs/promises';
+ * import { refitSvg, parseToleranceText } from 'arcspline';
+ *
+ * const text = await readFile('part.svg', 'utf8');
+ * const { text: out, report } = refitSvg(text, { tolerance: parseToleranceText('0.05mm') }, 'part.svg');
+ * if (!report.totals.withinTolerance) console.warn('some elements kept unchanged');
+ * await writeFile('part.fit.svg', out);
+ * ```
+ *
+ * Every length is in millimetres on the machine unless a name says otherwise.
+ * Nothing here reads or writes files; the functions are synchronous and
+ * independent per call, so a script may run them in its own worker threads.
+ */
+
+/**
+ * Refit every curve of an SVG document with circular arcs and lines within
+ * `options.tolerance` (mm), and measure the result.
+ * `refitSvg(text: string, options?: Partial<Options>, file?: string | null): RefitResult`;
+ * throws SvgInputError for text that is not a readable SVG document and
+ * OptionError for a bad option value.
+ */
+export { refitSvg } from './refit.js';
+export type { RefitResult, StageTimes } from './refit.js';
+
+/**
+ * The options object shared by the CLI and the library: `DEFAULT_OPTIONS`
+ * (frozen defaults), `OPTION_DOCS` (meaning and unit of each),
+ * `resolveOptions(partial)` (fills defaults with `??`, validates, throws
+ * OptionError), and `parseToleranceText("0.05mm" | "0.002in" | "0.2px" | "0.1")`
+ * returning mm.
+ */
+export { DEFAULT_OPTIONS, OPTION_DOCS, OptionError, parseToleranceText, resolveOptions } from './options.js';
+export type { OptionDoc, Options } from './options.js';
+
+/**
+ * The fitter on its own: `fitPolyline(xy: Float64Array, opts: FitOptions): FitResult`
+ * fits a flat x,y polyline (mm) with the fewest tangent-continuous arcs and
+ * lines within `opts.tolerance`; `arcGeometry(segment)` reads an arc's centre,
+ * radius and signed sweep (radians) off its motor.
+ */
+export { fitPolyline } from './fit/fitPolyline.js';
+export type { FitOptions, FitResult } from './fit/fitPolyline.js';
+export { arcGeometry } from './fit/segment.js';
+export type { ArcGeometry, Segment } from './fit/segment.js';
+
+/** The report's shape (also schema/report.schema.json); distances in mm. */
+export type { Deviation, ElementReport, FileReport } from './report/types.js';
+
+/**
+ * The independent deviation measurement:
+ * `measureDeviation(original, originalToMm, written, writtenToMm, toleranceMm, maxSamples?): Deviation | null`
+ * over parsed path data and 6-number SVG matrices (user units → mm).
+ */
+export { DEFAULT_MAX_SAMPLES, measureDeviation } from './report/measure.js';
+
+/**
+ * Measure any two SVG documents against each other:
+ * `compareSvg(a: string, b: string, opts: CompareOptions): Comparison`.
+ */
+export { compareSvg } from './report/compare.js';
+export type { CompareOptions, Comparison, ElementRef, PairDeviation } from './report/compare.js';
+
+/** Parsing path data and the flat path layout `measureDeviation` takes (`ops` opcodes, `args` numbers). */
+export { parsePathData } from './svg/pathData.js';
+export type { ParsedPath, PathData } from './svg/pathTypes.js';
+export type { Matrix } from './svg/matrixTypes.js';
+
+/** The error for input that is not a readable SVG document (one-line message, 1-based `line` and `column`). */
+export { SvgInputError } from './svg/errors.js';
+
+/** The package version. */
+export { VERSION } from './version.js';
