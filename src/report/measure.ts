@@ -11,11 +11,15 @@
 import type { PathData } from '../svg/pathTypes.js';
 import type { Matrix } from '../svg/matrixTypes.js';
 import type { Deviation } from './types.js';
-import { samplePath, sampleCount, type SampledPath } from './sample.js';
+import { SampleBuffer, samplePath, sampleCount, type SampledPath } from './sample.js';
 import { buildSegmentIndex, directedDistance } from './hausdorff.js';
 import { SegmentGrid } from './segmentGrid.js';
 
-/** Grids lent to every measurement in turn (synchronous use only), so steady state allocates no index. */
+/**
+ * Sample buffers and grids lent to every measurement in turn (each call uses and
+ * drops them before it returns), so steady state allocates no sample arrays or index.
+ */
+const bufA = new SampleBuffer(), bufB = new SampleBuffer();
 const gridA = new SegmentGrid(), gridB = new SegmentGrid();
 
 /** Chord error and bisection resolution, as fractions of the tolerance. */
@@ -46,16 +50,16 @@ export function measureDeviation(
   if (!(toleranceMm > 0) || !Number.isFinite(toleranceMm)) throw new RangeError(`toleranceMm must be a positive number, got ${toleranceMm}`);
   let spacing = toleranceMm * SPACING_FACTOR;
   let chord = toleranceMm * ERROR_FRACTION;
-  let sa = samplePath(original, originalToMm, spacing, chord);
-  let sb = samplePath(written, writtenToMm, spacing, chord);
+  let sa = samplePath(original, originalToMm, spacing, chord, bufA);
+  let sb = samplePath(written, writtenToMm, spacing, chord, bufB);
   const total = sampleCount(sa) + sampleCount(sb);
   if (total > maxSamples) {
     // Points scale like 1/spacing on straight runs and 1/sqrt(chord error) on curves.
     const f = total / maxSamples;
     spacing *= f;
     chord *= f * f;
-    sa = samplePath(original, originalToMm, spacing, chord);
-    sb = samplePath(written, writtenToMm, spacing, chord);
+    sa = samplePath(original, originalToMm, spacing, chord, bufA);
+    sb = samplePath(written, writtenToMm, spacing, chord, bufB);
   }
   return compareSampled(sa, sb, writtenToMm, chord);
 }

@@ -89,17 +89,25 @@ function sigmaMax(a: number, b: number, c: number, d: number): number {
   return Math.sqrt((s + Math.sqrt(Math.max(0, s * s - 4 * det * det))) / 2);
 }
 
-/** Growable flat x,y buffer. */
-interface Buf { data: Float64Array; n: number }
+/**
+ * Reusable storage for {@link samplePath}: with one, the polylines it returns
+ * are views into `data` (valid until the same buffer is passed again), so a
+ * measurement in steady state allocates no sample arrays.
+ */
+export class SampleBuffer {
+  /** mm, x,y pairs of all subpaths of the last call, one after another. */
+  data = new Float64Array(1024);
+  /** Doubles in use. */
+  n = 0;
 
-function push(buf: Buf, x: number, y: number): void {
-  if (buf.n + 2 > buf.data.length) {
-    const next = new Float64Array(buf.data.length * 2);
-    next.set(buf.data);
-    buf.data = next;
+  /** Make room for `points` more points. */
+  reserve(points: number): void {
+    const need = this.n + 2 * points;
+    if (need <= this.data.length) return;
+    const next = new Float64Array(Math.max(need, 2 * this.data.length));
+    next.set(this.data.subarray(0, this.n));
+    this.data = next;
   }
-  buf.data[buf.n++] = x;
-  buf.data[buf.n++] = y;
 }
 
 function pieceCount(n: number, what: string): number {
@@ -126,44 +134,22 @@ function pieceCount(n: number, what: string): number {
  * @param toMm user units → mm matrix, applied after evaluation
  * @param spacing mm, longest chord allowed (> 0)
  * @param chordError mm, target bound on curve-to-chord distance (> 0); default spacing/8
+ * @param into optional reusable storage; the polylines are then views into it
+ *   (see {@link SampleBuffer}), otherwise arrays of their own
  */
-export function samplePath(p: PathData, toMm: Matrix, spacing: number, chordError = spacing / 8): SampledPath {
+export function samplePath(p: PathData, toMm: Matrix, spacing: number, chordError = spacing / 8, into?: SampleBuffer): SampledPath {
   if (!(spacing > 0) || !Number.isFinite(spacing)) throw new RangeError(`spacing must be a positive number of mm, got ${spacing}`);
   if (!(chordError > 0) || !Number.isFinite(chordError)) throw new RangeError(`chordError must be a positive number of mm, got ${chordError}`);
   const ma = toMm[0], mb = toMm[1], mc = toMm[2], md = toMm[3], me = toMm[4], mf = toMm[5];
   const { ops, args } = p;
-  const polylines: Float64Array[] = [];
+  const out = into ?? new SampleBuffer();
+  out.n = 0;
+  // Subpaths as [start, end) ranges of `out.data` (doubles); turned into arrays at the end.
+  const ranges: number[] = [];
   const arc = new Float64Array(7);
   let errorBound = 0;
-  let buf: Buf | null = null;
+  let open = false, drew = false, begin = 0;
   let startX = 0, startY = 0, curX = 0, curY = 0; // user units
-  let drew = false;
-
-  const flush = (): void => {
-    if (buf !== null && drew) polylines.push(buf.data.slice(0, buf.n));
-    buf = null;
-    drew = false;
-  };
-  const open = (): Buf => {
-    if (buf === null) {
-      buf = { data: new Float64Array(64), n: 0 };
-      push(buf, ma * curX + mc * curY + me, mb * curX + md * curY + mf);
-      startX = curX;
-      startY = curY;
-    }
-    return buf;
-  };
-  const line = (b: Buf, x: number, y: number): void => {
-    const x0 = ma * curX + mc * curY + me, y0 = mb * curX + md * curY + mf;
-    const x1 = ma * x + mc * y + me, y1 = mb * x + md * y + mf;
-    const n = pieceCount(Math.ceil(Math.hypot(x1 - x0, y1 - y0) / spacing), 'line');
-    for (let i = 1; i < n; i++) {
-      const t = i / n;
-      push(b, x0 + (x1 - x0) * t, y0 + (y1 - y0) * t);
-    }
-    push(b, x1, y1);
-    drew = true;
-  };
 
   let k = 0;
   for (let s = 0; s < ops.length; s++) {
@@ -171,27 +157,43 @@ export function samplePath(p: PathData, toMm: Matrix, spacing: number, chordErro
     const i = k;
     k += OP_ARGS[op];
     if (op === OP_M) {
-      flush();
+      if (open && drew) ranges.push(begin, out.n);
+      open = false;
       curX = args[i];
       curY = args[i + 1];
-      open();
-      continue;
-    }
-    if (op === OP_Z) {
-      if (buf !== null) {
+    } else if (op === OP_Z) {
+      if (open) {
         // Already back at the start: the closing line has zero length, add no duplicate point.
-        if (curX !== startX || curY !== startY || !drew) line(buf, startX, startY);
+        if (curX !== startX || curY !== startY || !drew) {
+          sampleLine(out, ma * curX + mc * curY + me, mb * curX + md * curY + mf, ma * startX + mc * startY + me, mb * startX + md * startY + mf, spacing);
+          drew = true;
+        }
         curX = startX;
         curY = startY;
+        if (drew) ranges.push(begin, out.n);
       }
-      flush();
+      open = false;
       continue;
     }
-    const b = open(); // a drawing command right after Z starts a new subpath at the old start
+    if (!open) {
+      // A subpath starts at a moveto (so `M p Z` draws the point p), or at the old start with a
+      // drawing command right after Z; the points of one that draws nothing are overwritten.
+      open = true;
+      drew = false;
+      out.n = begin = ranges.length > 0 ? ranges[ranges.length - 1] : 0;
+      out.reserve(1);
+      out.data[out.n++] = ma * curX + mc * curY + me;
+      out.data[out.n++] = mb * curX + md * curY + mf;
+      startX = curX;
+      startY = curY;
+    }
+    if (op === OP_M) continue;
     if (op === OP_L) {
-      line(b, args[i], args[i + 1]);
-      curX = args[i];
-      curY = args[i + 1];
+      const x = args[i], y = args[i + 1];
+      sampleLine(out, ma * curX + mc * curY + me, mb * curX + md * curY + mf, ma * x + mc * y + me, mb * x + md * y + mf, spacing);
+      drew = true;
+      curX = x;
+      curY = y;
     } else if (op === OP_C || op === OP_Q) {
       const cubic = op === OP_C;
       const x0 = curX, y0 = curY, x1 = args[i], y1 = args[i + 1];
@@ -207,6 +209,9 @@ export function samplePath(p: PathData, toMm: Matrix, spacing: number, chordErro
         accel = 2 * lenL(x0 - 2 * x1 + x2, y0 - 2 * y1 + y2);
       }
       const n = pieceCount(Math.max(Math.ceil(Math.sqrt(accel / (8 * chordError))), Math.ceil(speed / spacing)), 'Bézier');
+      out.reserve(n);
+      const d = out.data;
+      let o = out.n;
       for (let j = 1; j < n; j++) {
         const t = j / n, u = 1 - t;
         let x: number, y: number;
@@ -219,9 +224,12 @@ export function samplePath(p: PathData, toMm: Matrix, spacing: number, chordErro
           x = b0 * x0 + b1 * x1 + b2 * x2;
           y = b0 * y0 + b1 * y1 + b2 * y2;
         }
-        push(b, ma * x + mc * y + me, mb * x + md * y + mf);
+        d[o++] = ma * x + mc * y + me;
+        d[o++] = mb * x + md * y + mf;
       }
-      push(b, ma * x3 + mc * y3 + me, mb * x3 + md * y3 + mf);
+      d[o++] = ma * x3 + mc * y3 + me;
+      d[o++] = mb * x3 + md * y3 + mf;
+      out.n = o;
       drew = true;
       errorBound = Math.max(errorBound, accel / (8 * n * n));
       curX = x3;
@@ -229,8 +237,10 @@ export function samplePath(p: PathData, toMm: Matrix, spacing: number, chordErro
     } else if (op === OP_A) {
       const x2 = args[i + 5], y2 = args[i + 6];
       const kind = endpointToCenter(arc, curX, curY, args[i], args[i + 1], args[i + 2], args[i + 3], args[i + 4], x2, y2);
-      if (kind === ARC_LINE) line(b, x2, y2);
-      else if (kind === ARC_ELLIPSE) {
+      if (kind === ARC_LINE) {
+        sampleLine(out, ma * curX + mc * curY + me, mb * curX + md * curY + mf, ma * x2 + mc * y2 + me, mb * x2 + md * y2 + mf, spacing);
+        drew = true;
+      } else if (kind === ARC_ELLIPSE) {
         const cx = arc[0], cy = arc[1], rx = arc[2], ry = arc[3], th1 = arc[5], dth = arc[6];
         const cp = Math.cos(arc[4]), sp = Math.sin(arc[4]);
         // E = L·R(φ)·diag(rx, ry); its columns are the images of the semi-axes.
@@ -238,13 +248,19 @@ export function samplePath(p: PathData, toMm: Matrix, spacing: number, chordErro
         const hErr = chordError < sigma ? 2 * Math.acos(1 - chordError / sigma) : Math.PI / 2;
         const span = Math.abs(dth);
         const n = pieceCount(Math.max(Math.ceil(span / Math.min(hErr, Math.PI / 2)), Math.ceil((sigma * span) / spacing)), 'arc');
+        out.reserve(n);
+        const d = out.data;
+        let o = out.n;
         for (let j = 1; j < n; j++) {
           const th = th1 + (dth * j) / n;
           const ex = rx * Math.cos(th), ey = ry * Math.sin(th);
           const x = cp * ex - sp * ey + cx, y = sp * ex + cp * ey + cy; // F.6.3.1
-          push(b, ma * x + mc * y + me, mb * x + md * y + mf);
+          d[o++] = ma * x + mc * y + me;
+          d[o++] = mb * x + md * y + mf;
         }
-        push(b, ma * x2 + mc * y2 + me, mb * x2 + md * y2 + mf); // the formula's end point is P2
+        d[o++] = ma * x2 + mc * y2 + me; // the formula's end point is P2
+        d[o++] = mb * x2 + md * y2 + mf;
+        out.n = o;
         drew = true;
         const q = Math.sin(span / n / 4);
         errorBound = Math.max(errorBound, sigma * 2 * q * q); // 1 − cos(h/2) = 2 sin²(h/4), no cancellation
@@ -255,12 +271,33 @@ export function samplePath(p: PathData, toMm: Matrix, spacing: number, chordErro
       throw new RangeError(`unknown path opcode ${op} at segment ${s}`);
     }
   }
-  flush();
+  if (open && drew) ranges.push(begin, out.n);
+  const polylines: Float64Array[] = [];
+  for (let r = 0; r < ranges.length; r += 2) {
+    polylines.push(into ? out.data.subarray(ranges[r], ranges[r + 1]) : out.data.slice(ranges[r], ranges[r + 1]));
+  }
   return { polylines, errorBound };
 
   function lenL(dx: number, dy: number): number {
     return Math.hypot(ma * dx + mc * dy, mb * dx + md * dy);
   }
+}
+
+/** Append the line (x0, y0)→(x1, y1) (mm) in ⌈length/spacing⌉ chords, without its first point. */
+function sampleLine(out: SampleBuffer, x0: number, y0: number, x1: number, y1: number, spacing: number): void {
+  const dx = x1 - x0, dy = y1 - y0;
+  const n = pieceCount(Math.ceil(Math.sqrt(dx * dx + dy * dy) / spacing), 'line');
+  out.reserve(n);
+  const d = out.data;
+  let o = out.n;
+  for (let i = 1; i < n; i++) {
+    const t = i / n;
+    d[o++] = x0 + dx * t;
+    d[o++] = y0 + dy * t;
+  }
+  d[o++] = x1;
+  d[o++] = y1;
+  out.n = o;
 }
 
 /** Total number of points in a sampled path (for work caps). */

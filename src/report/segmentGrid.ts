@@ -33,7 +33,7 @@ export function distPointSegment(px: number, py: number, ax: number, ay: number,
 }
 
 /** Upper limit on cells per segment (sets the smallest cell on compact shapes). */
-const CELLS_PER_SEGMENT = 16;
+const CELLS_PER_SEGMENT = 4;
 /** Smallest cell, in mean segment lengths. */
 const MIN_CELL_LENGTHS = 2;
 
