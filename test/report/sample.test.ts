@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { svgPathProperties } from 'svg-path-properties';
 import { OP_A, OP_C, OP_L, OP_M, OP_Q, OP_Z, type PathData } from '../../src/svg/pathTypes.js';
-import { ARC_ELLIPSE, ARC_LINE, ARC_OMITTED, endpointToCenter, samplePath } from '../../src/report/sample.js';
+import { ARC_ELLIPSE, ARC_LINE, ARC_OMITTED, SampleBuffer, endpointToCenter, samplePath } from '../../src/report/sample.js';
 
 /** Builds flat path data and the equivalent absolute `d` text side by side (no parser needed). */
 function path() {
@@ -206,6 +206,20 @@ describe('samplePath', () => {
       for (let i = 0; i + 3 < pl.length; i += 2) len += Math.hypot(pl[i + 2] - pl[i], pl[i + 3] - pl[i + 1]);
       expect(len / total).toBeCloseTo(1, 3);
     }
+  });
+
+  it('into a reusable buffer: the same numbers, as views that the next call overwrites', () => {
+    const buf = new SampleBuffer();
+    buf.data = new Float64Array(4); // force growth on the way
+    const p = path().M(100, 100).M(0, 0).L(4, 0).C(6, 0, 6, 3, 4, 3).Z().M(9, 9).L(9, 20).A(3, 2, 10, 0, 1, 15, 15).data();
+    const m = Float64Array.of(2, 0.5, -0.3, 1, 4, 5);
+    const own = samplePath(p, m, 0.3, 0.01), lent = samplePath(p, m, 0.3, 0.01, buf);
+    expect(lent.errorBound).toBe(own.errorBound);
+    expect(lent.polylines.map((x) => Array.from(x))).toEqual(own.polylines.map((x) => Array.from(x)));
+    expect(lent.polylines.every((x) => x.buffer === buf.data.buffer)).toBe(true);
+    const first = lent.polylines[0][0];
+    samplePath(path().M(-1, -1).L(1, 1).data(), ID, 1, 0.1, buf);
+    expect(lent.polylines[0][0]).not.toBe(first); // views, not copies: valid only until the next call
   });
 
   it('rejects a non-positive spacing with the bad value in the message', () => {
