@@ -74,28 +74,55 @@ const now = (): number => performance.now();
 export function refitSvg(text: string, partial: Partial<Options> = {}, file: string | null = null): RefitResult {
   const t0 = now();
   const opts = resolveOptions(partial);
-  const times: StageTimes = { parse: 0, flatten: 0, fit: 0, write: 0, measure: 0 };
-  let t = now();
+  const times = emptyTimes();
+  const t = now();
   const doc = readSvg(text, { assumedMmPerUnit: opts.assumedMmPerUnit });
   times.parse += now() - t;
+  const outcomes = doc.elements.filter((el) => el.rewritable).map((el) => refitOne(doc, el, opts, times));
+  return assemble(text, doc, outcomes, opts, file, times, t0);
+}
+
+/** Fresh stage times. */
+export function emptyTimes(): StageTimes {
+  return { parse: 0, flatten: 0, fit: 0, write: 0, measure: 0 };
+}
+
+/** What refitting one element gave: its report entry (null when it draws nothing), its edits, its warnings. */
+export interface ElementOutcome {
+  index: number;
+  report: ElementReport | null;
+  edits: Edit[] | null;
+  warnings: string[];
+}
+
+/** Refit one rewritable element of a read document. */
+export function refitOne(doc: Pick<SvgDocument, 'text' | 'rootToMm'>, el: GeometryElement, opts: Options, times: StageTimes): ElementOutcome {
+  const warnings: string[] = [];
+  const r = refitElement(doc, el, opts, times, warnings);
+  return { index: el.index, report: r ? r.report : null, edits: r ? r.edits : null, warnings };
+}
+
+/** Put the outcomes (in document order) together into the new text and the report. */
+export function assemble(
+  text: string, doc: SvgDocument, outcomes: ElementOutcome[], opts: Options, file: string | null, times: StageTimes, t0: number,
+): RefitResult {
   const warnings = doc.warnings.slice();
   const edits: Edit[] = [];
   const elements: ElementReport[] = [];
-  for (const el of doc.elements) {
-    if (!el.rewritable) continue;
-    const r = refitElement(doc, el, opts, times, warnings);
-    if (!r) continue;
-    elements.push(r.report);
-    if (r.edits) edits.push(...r.edits);
+  for (const o of outcomes) {
+    warnings.push(...o.warnings);
+    if (!o.report) continue;
+    elements.push(o.report);
+    if (o.edits) edits.push(...o.edits);
   }
-  t = now();
+  const t = now();
   const out = applyEdits(text, edits);
   times.write += now() - t;
   const report = summarise(elements, opts.tolerance, text, out, warnings, file, now() - t0);
   return { text: out, report, times };
 }
 
-interface ElementOutcome {
+interface ElementResult {
   report: ElementReport;
   edits: Edit[] | null;
 }
@@ -128,7 +155,9 @@ function baseReport(el: GeometryElement, p: ParsedPath): ElementReport {
   };
 }
 
-function refitElement(doc: SvgDocument, el: GeometryElement, opts: Options, times: StageTimes, warnings: string[]): ElementOutcome | null {
+function refitElement(
+  doc: Pick<SvgDocument, 'text' | 'rootToMm'>, el: GeometryElement, opts: Options, times: StageTimes, warnings: string[],
+): ElementResult | null {
   let t = now();
   const p = readGeometry(el, warnings);
   times.parse += now() - t;
@@ -251,7 +280,7 @@ function straightMoves(c: Contour, tol: number): number {
   return thinWithin(c.xy, n, c.closed, tol, null).length - 1;
 }
 
-function elementEdits(doc: SvgDocument, el: GeometryElement, d: string, opts: Options): Edit[] {
+function elementEdits(doc: Pick<SvgDocument, 'text'>, el: GeometryElement, d: string, opts: Options): Edit[] {
   const set: Record<string, string> = { d };
   const remove: string[] = el.name === 'path' ? [] : SHAPE_ATTRS[el.name].filter((a) => a in el.attrs);
   if (opts.bakeTransforms) {

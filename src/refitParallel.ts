@@ -1,0 +1,102 @@
+/**
+ * The main job on several cores: the document is read once, its rewritable
+ * elements are shared out (largest first, each to the least loaded thread) to
+ * worker threads and this thread, and the outcomes are put together in document
+ * order, exactly as `refitSvg` would (same text, same report). Elements are
+ * independent: each is fitted and measured on its own.
+ *
+ * Where no compiled worker exists (TypeScript sources under a test runner) or
+ * one thread is asked for, it runs in this thread.
+ */
+import { existsSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
+import { fileURLToPath } from 'node:url';
+import { Worker } from 'node:worker_threads';
+import { resolveOptions, type Options } from './options.js';
+import { readSvg, type GeometryElement } from './svg/document.js';
+import { assemble, emptyTimes, refitOne, type ElementOutcome, type RefitResult, type StageTimes } from './refit.js';
+
+/** Below this much geometry text a second thread costs more than it saves. */
+export const PARALLEL_MIN_CHARS = 1 << 20;
+
+/** The message a worker gets, and what it answers. */
+export interface ElementJob {
+  kind: 'arcspline-elements';
+  text: string;
+  rootToMm: Float64Array;
+  elements: GeometryElement[];
+  opts: Options;
+}
+export interface ElementJobResult {
+  outcomes: ElementOutcome[];
+  times: StageTimes;
+}
+
+function workerUrl(): URL | null {
+  if (!import.meta.url.endsWith('.js')) return null;
+  const url = new URL('./refitWorker.js', import.meta.url);
+  return existsSync(fileURLToPath(url)) ? url : null;
+}
+
+function weight(el: GeometryElement): number {
+  return (el.attrs.d ?? el.attrs.points ?? '').length + 64;
+}
+
+function runWorker(url: URL, job: ElementJob): Promise<ElementJobResult> {
+  return new Promise((resolve, reject) => {
+    const w = new Worker(url, { workerData: job });
+    w.once('message', (m: ElementJobResult) => {
+      resolve(m);
+      void w.terminate();
+    });
+    w.once('error', reject);
+    w.once('exit', (code) => {
+      if (code !== 0) reject(new Error(`refit worker stopped with code ${code}`));
+    });
+  });
+}
+
+/**
+ * Refit an SVG document using up to `jobs` threads. Same result as `refitSvg`;
+ * stage times are summed over the threads.
+ */
+export async function refitSvgParallel(
+  text: string, partial: Partial<Options> = {}, file: string | null = null, jobs = availableParallelism(),
+): Promise<RefitResult> {
+  const t0 = performance.now();
+  const opts = resolveOptions(partial);
+  const times = emptyTimes();
+  let t = performance.now();
+  const doc = readSvg(text, { assumedMmPerUnit: opts.assumedMmPerUnit });
+  times.parse += performance.now() - t;
+  const els = doc.elements.filter((el) => el.rewritable);
+  const url = workerUrl();
+  const total = els.reduce((s, el) => s + weight(el), 0);
+  const threads = Math.max(1, Math.min(jobs, els.length));
+  if (!url || threads < 2 || total < PARALLEL_MIN_CHARS) {
+    const outcomes = els.map((el) => refitOne(doc, el, opts, times));
+    return assemble(text, doc, outcomes, opts, file, times, t0);
+  }
+  // Largest first, each to the least loaded share (bin 0 stays on this thread).
+  const bins: GeometryElement[][] = Array.from({ length: threads }, () => []);
+  const load = new Float64Array(threads);
+  for (const el of els.slice().sort((a, b) => weight(b) - weight(a))) {
+    let k = 0;
+    for (let i = 1; i < threads; i++) if (load[i] < load[k]) k = i;
+    bins[k].push(el);
+    load[k] += weight(el);
+  }
+  const pending = bins.slice(1).map((b) => runWorker(url, { kind: 'arcspline-elements', text, rootToMm: doc.rootToMm, elements: b, opts }));
+  t = performance.now();
+  const mine = bins[0].map((el) => refitOne(doc, el, opts, times));
+  const results = await Promise.all(pending);
+  const byIndex = new Map<number, ElementOutcome>();
+  for (const o of mine) byIndex.set(o.index, o);
+  for (const r of results) {
+    for (const o of r.outcomes) byIndex.set(o.index, o);
+    for (const k of Object.keys(times) as (keyof StageTimes)[]) times[k] += r.times[k];
+  }
+  void t;
+  const outcomes = els.map((el) => byIndex.get(el.index)!);
+  return assemble(text, doc, outcomes, opts, file, times, t0);
+}

@@ -1,0 +1,28 @@
+import { beforeAll, describe, expect, it } from 'vitest';
+import { execFileSync } from 'node:child_process';
+import { existsSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { refitSvg } from '../../src/refit.js';
+import { bigDrawing } from '../../bench/bigfile.js';
+
+const root = fileURLToPath(new URL('../..', import.meta.url));
+
+describe('refitting on several threads', () => {
+  beforeAll(() => {
+    // Worker threads run the compiled library: build it (as `npm ci` does through `prepare`).
+    execFileSync(process.execPath, [`${root}/node_modules/typescript/bin/tsc`, '-p', `${root}/tsconfig.json`], { stdio: 'ignore' });
+  }, 120_000);
+
+  it('gives exactly the text and report of the one-thread run (worker threads really used)', async () => {
+    const built = `${root}/dist/src/refitParallel.js`;
+    expect(existsSync(`${root}/dist/src/refitWorker.js`)).toBe(true);
+    const { refitSvgParallel, PARALLEL_MIN_CHARS } = (await import(built)) as typeof import('../../src/refitParallel.js');
+    const text = bigDrawing(40, 2500); // about 1.9 MB: above the threshold for threads
+    expect(text.length).toBeGreaterThan(PARALLEL_MIN_CHARS);
+    const one = refitSvg(text, { tolerance: 0.05 });
+    const two = await refitSvgParallel(text, { tolerance: 0.05 }, null, 2);
+    expect(two.text).toBe(one.text);
+    const strip = (r: typeof one.report): unknown => ({ ...r, timeMs: 0 });
+    expect(strip(two.report)).toEqual(strip(one.report));
+  }, 120_000);
+});
