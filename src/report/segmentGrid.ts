@@ -4,10 +4,12 @@
  *
  * Layout: `segs[4k..4k+3] = ax, ay, bx, by` (mm) is segment k, in polyline
  * order (a one-point polyline is a zero-length segment). Cell (i, j) covers
- * the points whose `cellX(x) = i`, `cellY(y) = j`; its segment ids are
- * `items[start[c] .. start[c + 1] − 1]` with `c = j·nx + i`. A segment is
- * listed in every cell its bounding box meets, so a box query over the cells
- * of a square sees every segment that reaches into the square.
+ * the points whose `cellX(x) = i`, `cellY(y) = j`; its listings are the slots
+ * `t = start[c] .. start[c + 1] − 1` with `c = j·nx + i`: segment id `items[t]`
+ * and a copy of its coordinates in `coords[4t..4t+3]` (so a query reads one
+ * cell's segments from consecutive memory). A segment is listed in every cell
+ * its bounding box meets, so a box query over the cells of a square sees every
+ * segment that reaches into the square.
  *
  * Cell size: at least 2 mean segment lengths and 1/8 of the longest segment
  * (each segment is listed in few cells), and large enough that there are at
@@ -52,6 +54,9 @@ export class SegmentGrid {
   nx = 1; ny = 1;
   private start = new Int32Array(2);
   private items = new Int32Array(0);
+  private coords = new Float64Array(0);
+  /** Per segment during build: its only cell, or −1 when it meets several. */
+  private home = new Int32Array(0);
   /** Segment id of the last query's answer (−1 when the grid is empty). */
   hit = -1;
 
@@ -109,23 +114,52 @@ export class SegmentGrid {
     if (this.start.length < cells + 1) this.start = new Int32Array(cells + 1 + (cells >> 1));
     const start = this.start;
     start.fill(0, 0, cells + 1);
+    if (this.home.length < count) this.home = new Int32Array(this.segs.length >> 2);
+    const home = this.home, nx = this.nx;
     // Two passes: count per cell, then fill (start[c] ends as the first slot of cell c).
     let listed = 0;
     for (let s = 0; s < count; s++) {
       const o = 4 * s;
-      const i0 = this.cellX(Math.min(segs[o], segs[o + 2])), i1 = this.cellX(Math.max(segs[o], segs[o + 2]));
-      const j0 = this.cellY(Math.min(segs[o + 1], segs[o + 3])), j1 = this.cellY(Math.max(segs[o + 1], segs[o + 3]));
-      for (let j = j0; j <= j1; j++) for (let i = i0; i <= i1; i++) start[j * this.nx + i + 1]++;
+      const ax = segs[o], ay = segs[o + 1], bx = segs[o + 2], by = segs[o + 3];
+      const i0 = this.cellX(ax < bx ? ax : bx), i1 = this.cellX(ax < bx ? bx : ax);
+      const j0 = this.cellY(ay < by ? ay : by), j1 = this.cellY(ay < by ? by : ay);
+      if (i0 === i1 && j0 === j1) {
+        const c = j0 * nx + i0;
+        home[s] = c;
+        start[c + 1]++;
+        listed++;
+        continue;
+      }
+      home[s] = -1;
+      for (let j = j0; j <= j1; j++) for (let i = i0; i <= i1; i++) start[j * nx + i + 1]++;
       listed += (i1 - i0 + 1) * (j1 - j0 + 1);
     }
     for (let c = 0; c < cells; c++) start[c + 1] += start[c];
-    if (this.items.length < listed) this.items = new Int32Array(listed + (listed >> 1));
-    const items = this.items;
+    if (this.items.length < listed) {
+      this.items = new Int32Array(listed + (listed >> 1));
+      this.coords = new Float64Array(4 * this.items.length);
+    }
+    const items = this.items, coords = this.coords;
     for (let s = 0; s < count; s++) {
       const o = 4 * s;
-      const i0 = this.cellX(Math.min(segs[o], segs[o + 2])), i1 = this.cellX(Math.max(segs[o], segs[o + 2]));
-      const j0 = this.cellY(Math.min(segs[o + 1], segs[o + 3])), j1 = this.cellY(Math.max(segs[o + 1], segs[o + 3]));
-      for (let j = j0; j <= j1; j++) for (let i = i0; i <= i1; i++) items[start[j * this.nx + i]++] = s;
+      const ax = segs[o], ay = segs[o + 1], bx = segs[o + 2], by = segs[o + 3];
+      let c = home[s];
+      if (c >= 0) {
+        const t = start[c]++;
+        items[t] = s;
+        coords[4 * t] = ax; coords[4 * t + 1] = ay; coords[4 * t + 2] = bx; coords[4 * t + 3] = by;
+        continue;
+      }
+      const i0 = this.cellX(ax < bx ? ax : bx), i1 = this.cellX(ax < bx ? bx : ax);
+      const j0 = this.cellY(ay < by ? ay : by), j1 = this.cellY(ay < by ? by : ay);
+      for (let j = j0; j <= j1; j++) {
+        for (let i = i0; i <= i1; i++) {
+          c = j * nx + i;
+          const t = start[c]++;
+          items[t] = s;
+          coords[4 * t] = ax; coords[4 * t + 1] = ay; coords[4 * t + 2] = bx; coords[4 * t + 3] = by;
+        }
+      }
     }
     // The fill moved every start[c] to the end of cell c, i.e. the start of c + 1: shift back.
     for (let c = cells; c > 0; c--) start[c] = start[c - 1];
@@ -164,16 +198,32 @@ export class SegmentGrid {
     // the margin covers rounding in the distance and cell formulas.
     const u = best * (1 + 1e-9) + this.cell * 1e-9;
     const i0 = this.cellX(px - u), i1 = this.cellX(px + u), j0 = this.cellY(py - u), j1 = this.cellY(py + u);
-    const segs = this.segs, items = this.items, start = this.start, nx = this.nx;
+    const coords = this.coords, start = this.start, nx = this.nx;
+    // Squared distances in the loop (one square root at the end); same clamped projection as distPointSegment.
+    let best2 = best * best, hitSlot = -1;
     for (let j = j0; j <= j1; j++) {
-      for (let i = i0; i <= i1; i++) {
-        const c = j * nx + i;
+      for (let c = j * nx + i0, ce = j * nx + i1; c <= ce; c++) {
         for (let t = start[c], e = start[c + 1]; t < e; t++) {
-          const o = 4 * items[t];
-          const d = distPointSegment(px, py, segs[o], segs[o + 1], segs[o + 2], segs[o + 3]);
-          if (d < best) { best = d; this.hit = items[t]; }
+          const o = 4 * t;
+          const ax = coords[o], ay = coords[o + 1];
+          const dx = coords[o + 2] - ax, dy = coords[o + 3] - ay;
+          let ex = px - ax, ey = py - ay;
+          const len2 = dx * dx + dy * dy;
+          if (len2 > 0) {
+            let r = (ex * dx + ey * dy) / len2;
+            if (r > 1) r = 1;
+            else if (r < 0) r = 0;
+            ex -= r * dx;
+            ey -= r * dy;
+          }
+          const d2 = ex * ex + ey * ey;
+          if (d2 < best2) { best2 = d2; hitSlot = t; }
         }
       }
+    }
+    if (hitSlot >= 0) {
+      this.hit = this.items[hitSlot];
+      best = Math.sqrt(best2);
     }
     return best;
   }
@@ -185,7 +235,7 @@ export class SegmentGrid {
    */
   nearest(px: number, py: number): number {
     const ci = this.cellX(px), cj = this.cellY(py), nx = this.nx, ny = this.ny;
-    const segs = this.segs, items = this.items, start = this.start;
+    const coords = this.coords, items = this.items, start = this.start;
     const margin = this.cell * 1e-9;
     let best = Infinity;
     this.hit = -1;
@@ -200,8 +250,8 @@ export class SegmentGrid {
           if (!edgeRow && i !== i0 && i !== i1) { i = i1 - 1; continue; } // inner cells were read before
           const c = j * nx + i;
           for (let t = start[c], e = start[c + 1]; t < e; t++) {
-            const o = 4 * items[t];
-            const d = distPointSegment(px, py, segs[o], segs[o + 1], segs[o + 2], segs[o + 3]);
+            const o = 4 * t;
+            const d = distPointSegment(px, py, coords[o], coords[o + 1], coords[o + 2], coords[o + 3]);
             if (d < best) { best = d; this.hit = items[t]; }
           }
         }
