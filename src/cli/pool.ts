@@ -63,7 +63,10 @@ export class WorkerPool implements TaskRunner {
   constructor(
     private readonly url: URL, readonly size: number,
     private readonly options: Partial<Options>, private readonly memoryMb: number,
-  ) {}
+  ) {
+    // Start every worker now, so loading the library overlaps with the first files' reading.
+    for (let i = 0; i < size; i++) this.spawn();
+  }
 
   async run(task: FileTask): Promise<FileOutcome> {
     let slot = this.slots.find((s) => s.task === null);

@@ -220,6 +220,12 @@ describe('batch through the built binary (worker threads)', () => {
       .toEqual(['a.svg', 'd.svg', 'parts/b.svg', 'parts/broken.svg', 'parts/deep/c.svg'].map((f) => at('in', ...f.split('/'))));
   }, 60_000);
 
+  it("the built library resolves by its package name (import ... from 'arcspline')", () => {
+    const code = "import('arcspline').then((m) => console.log(typeof m.refitSvg, typeof m.compareSvg, m.VERSION))";
+    const r = spawnSync(process.execPath, ['--input-type=module', '-e', code], { cwd: ROOT, encoding: 'utf8' });
+    expect(r.stdout.trim()).toBe(`function function ${JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8')).version}`);
+  });
+
   it('refuses a file over the per-worker memory guard before reading it', () => {
     // 64 MB heap / 6 bytes of heap per input byte: files above about 11 MB are refused.
     writeTree(at('in'), { 'a.svg': circle(30), 'huge.svg': `<svg xmlns="http://www.w3.org/2000/svg"><!--${'x'.repeat(12_000_000)}--></svg>` });
