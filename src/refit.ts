@@ -221,16 +221,21 @@ function refitElement(
   report.segmentsAfter = { arcs: stats.arcs, lines: stats.lines };
   void arcs;
   void lines;
-  // Already as short as it can be: only lines and arcs, and no fewer pieces after fitting.
-  const before = p.ops.length;
-  if (!curved && stats.arcs + stats.lines >= before - contours.length && el.name !== 'polyline' && el.name !== 'polygon') {
+  const written = parsePathData(d);
+  // Already as short as it can be: only lines and arcs, and no fewer drawing commands after fitting.
+  if (!curved && el.name === 'path' && drawingCommands(written) >= drawingCommands(p)) {
     report.keptReason = 'already no longer than a refit';
     report.segmentsAfter = { arcs: 0, lines: 0 };
     return { report, edits: null };
   }
   t = now();
-  const written = parsePathData(d);
-  report.deviation = measureDeviation(p, el.toMm, written, writtenToMm, tol);
+  try {
+    report.deviation = measureDeviation(p, el.toMm, written, writtenToMm, tol);
+  } catch (e) {
+    times.measure += now() - t;
+    report.keptReason = `cannot measure: ${(e as Error).message}`;
+    return { report, edits: null };
+  }
   times.measure += now() - t;
   if (written.error || !report.deviation || !(report.deviation.max <= tol)) {
     report.keptReason = written.error
@@ -242,6 +247,13 @@ function refitElement(
   }
   report.kept = false;
   return { report, edits: elementEdits(doc, el, d, opts) };
+}
+
+/** Segments drawn (every command but moveto; a Z draws the closing line). */
+function drawingCommands(p: PathData): number {
+  let n = 0;
+  for (let i = 0; i < p.ops.length; i++) if (p.ops[i] !== OP_M) n++;
+  return n;
 }
 
 /** Start points of subpaths that draw something but never leave their start point. */

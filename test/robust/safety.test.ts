@@ -43,13 +43,9 @@ describe('data safety', () => {
     expect(r.text.slice(a, r.text.length - (text.length - b))).not.toContain('"');
   });
 
-  // BUG (src/refit.ts, refitElement's "already no longer than a refit" test): `before`
-  // counts the Z of a closed contour (ops.length includes OP_Z) but the writer's
-  // stats.lines does not count the closing line it leaves to Z, so every closed
-  // line-only path looks one segment shorter after "fitting" and is rewritten
-  // (M 0 0 L 2 0 L 2 2 Z → M0 0H2V2Z): same geometry, same segment count, but
-  // the bytes change. Expected: kept as written, like the open polyline above.
-  it.fails('a closed path of straight lines only is left as written', () => {
+  // A closed line-only path once looked one segment shorter after "fitting" (the Z was
+  // counted before but not after) and was rewritten to the same geometry; now it is kept.
+  it('a closed path of straight lines only is left as written', () => {
     const text = '<svg xmlns="http://www.w3.org/2000/svg" width="100mm" height="100mm" viewBox="0 0 100 100"><path d="M 0 0 L 2 0 L 2 2 Z"/></svg>';
     expect(refitSvg(text).text).toBe(text);
   });
