@@ -36,6 +36,11 @@ export function distPointSegment(px: number, py: number, ax: number, ay: number,
 
 /** Upper limit on cells per segment (sets the smallest cell on compact shapes). */
 const CELLS_PER_SEGMENT = 4;
+/** Mean listings per occupied cell above which the cells are made finer, and the aim then. */
+const MAX_OCCUPANCY = 32;
+const TARGET_OCCUPANCY = 8;
+/** Upper limit on cells per segment for that finer layout. */
+const SPARSE_CELLS_PER_SEGMENT = 64;
 /** Smallest cell, in mean segment lengths. */
 const MIN_CELL_LENGTHS = 2;
 
@@ -57,6 +62,8 @@ export class SegmentGrid {
   private coords = new Float64Array(0);
   /** Per segment during build: its only cell, or −1 when it meets several. */
   private home = new Int32Array(0);
+  /** Listings (segment-in-cell entries) of the current layout. */
+  private listed = 0;
   /** Segment id of the last query's answer (−1 when the grid is empty). */
   hit = -1;
 
@@ -101,10 +108,26 @@ export class SegmentGrid {
     );
     this.x0 = minX;
     this.y0 = minY;
-    if (!Number.isFinite(cell) || !Number.isFinite(w) || !Number.isFinite(h)) {
-      this.inv = 0; this.nx = 1; this.ny = 1; cell = Infinity; // degenerate: one cell, a plain scan
+    if (!Number.isFinite(cell) || !Number.isFinite(w) || !Number.isFinite(h)) cell = Infinity; // one cell, a plain scan
+    else if (!(cell > 0)) cell = 1; // every point the same: any cell size works
+    const occupied = this.place(cell, w, h);
+    // Sparse shapes (a dense part and a far outlier) crowd their few occupied cells: refine the
+    // cells once, within a larger memory budget, to about TARGET_OCCUPANCY listings each.
+    const occupancy = this.listed / occupied;
+    if (occupancy > MAX_OCCUPANCY && Number.isFinite(cell)) {
+      const finer = Math.max(cell * Math.sqrt(TARGET_OCCUPANCY / occupancy), Math.sqrt((w * h) / (SPARSE_CELLS_PER_SEGMENT * count)),
+        (w + h) / (SPARSE_CELLS_PER_SEGMENT * count), MIN_CELL_LENGTHS * this.meanLength, longest / 8);
+      if (finer < cell) this.place(finer, w, h);
+    }
+    return true;
+  }
+
+  /** Lay the segments out in cells of size `cell` (mm) over the extent w × h; returns the number of occupied cells. */
+  private place(cell: number, w: number, h: number): number {
+    const segs = this.segs, count = this.count;
+    if (cell === Infinity) {
+      this.inv = 0; this.nx = 1; this.ny = 1;
     } else {
-      if (!(cell > 0)) cell = 1; // every point the same: any cell size works
       this.inv = 1 / cell;
       this.nx = Math.floor(w * this.inv) + 1;
       this.ny = Math.floor(h * this.inv) + 1;
@@ -134,7 +157,12 @@ export class SegmentGrid {
       for (let j = j0; j <= j1; j++) for (let i = i0; i <= i1; i++) start[j * nx + i + 1]++;
       listed += (i1 - i0 + 1) * (j1 - j0 + 1);
     }
-    for (let c = 0; c < cells; c++) start[c + 1] += start[c];
+    let occupied = 0;
+    for (let c = 0; c < cells; c++) {
+      if (start[c + 1] > 0) occupied++;
+      start[c + 1] += start[c];
+    }
+    this.listed = listed;
     if (this.items.length < listed) {
       this.items = new Int32Array(listed + (listed >> 1));
       this.coords = new Float64Array(4 * this.items.length);
@@ -164,7 +192,7 @@ export class SegmentGrid {
     // The fill moved every start[c] to the end of cell c, i.e. the start of c + 1: shift back.
     for (let c = cells; c > 0; c--) start[c] = start[c - 1];
     start[0] = 0;
-    return true;
+    return occupied;
   }
 
   /** Column of x, clamped to the grid (monotone in x, the same formula for building and queries). */

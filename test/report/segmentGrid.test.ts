@@ -71,11 +71,20 @@ describe('SegmentGrid', () => {
     expect(g.nearest(50, 0)).toBeCloseTo(Math.hypot(49, 10), 12);
   });
 
-  it('keeps the cell count linear in the segments (a long diagonal and a dense cluster)', () => {
+  it('keeps the cell count linear in the segments, and makes the cells finer for a dense part in a sparse extent', () => {
     const g = new SegmentGrid();
     const cluster = walk(rng(9), 5000, 0.001, 500, 500);
-    g.build([Float64Array.of(0, 0, 1000, 1000), cluster]);
+    g.build([Float64Array.of(0, 0), cluster, Float64Array.of(1000, 1000)]); // far outliers around a dense walk
+    // at most 64 cells per segment (the sparse budget) plus the edge rows: memory stays linear
+    expect(g.nx * g.ny).toBeLessThanOrEqual(64 * g.count + 2 * Math.sqrt(64 * g.count) + 1);
+    // the first layout (≤ 4 cells per segment) would have cells of 1000/sqrt(4·5000) ≈ 7 mm, all of the cluster in one
+    expect(g.cell).toBeLessThan(1000 / Math.sqrt(4 * g.count) / 2);
+    expect(g.nearest(0, 1)).toBe(1);
+    expect(g.nearest(999, 1000)).toBe(1);
+    // an even shape keeps the small budget
+    const ring = new Float64Array(2 * 2001);
+    for (let i = 0; i <= 2000; i++) { ring[2 * i] = 20 * Math.cos(i * Math.PI / 1000); ring[2 * i + 1] = 20 * Math.sin(i * Math.PI / 1000); }
+    g.build([ring]);
     expect(g.nx * g.ny).toBeLessThanOrEqual(4 * g.count + 2 * Math.sqrt(4 * g.count) + 1);
-    expect(g.nearest(0, 1)).toBeCloseTo(Math.SQRT1_2, 12);
   });
 });
