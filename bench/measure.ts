@@ -8,7 +8,7 @@
  * Reports medians over several runs for the current implementation and for the
  * frozen previous one (bench/baseline/), run in the same process and
  * interleaved so machine load hits both alike; the ratio of medians is the
- * speed-up. A checksum of the reported maxima guards against dropped work and
+ * speed-up (process CPU time too, which a loaded machine disturbs less). A checksum of the reported maxima guards against dropped work and
  * shows how far the two disagree (both are upper bounds; see measure.ts).
  *
  * Run alone: `npx tsx bench/measure.ts [contours] [runs]`.
@@ -71,9 +71,10 @@ function makePairs(count: number, tol: number): Pair[] {
 
 type Measure = typeof measureDeviation;
 
-/** One run over all pairs: ms and the sum of maxima (the checksum). */
-function run(f: Measure, pairs: Pair[], tol: number): { ms: number; sum: number; worst: number } {
+/** One run over all pairs: wall and process CPU ms, and the sum of maxima (the checksum). */
+function run(f: Measure, pairs: Pair[], tol: number): { ms: number; cpu: number; sum: number; worst: number } {
   const id = identityMatrix();
+  const c0 = process.cpuUsage();
   const t0 = performance.now();
   let sum = 0, worst = 0;
   for (const p of pairs) {
@@ -81,7 +82,8 @@ function run(f: Measure, pairs: Pair[], tol: number): { ms: number; sum: number;
     sum += d.max;
     worst = Math.max(worst, d.max);
   }
-  return { ms: performance.now() - t0, sum, worst };
+  const ms = performance.now() - t0, c = process.cpuUsage(c0);
+  return { ms, cpu: (c.user + c.system) / 1000, sum, worst };
 }
 
 function median(v: number[]): number {
@@ -103,22 +105,23 @@ export async function benchMeasure(contours = 40, runs = 7): Promise<string> {
   const commands = pairs.reduce((s, p) => s + p.commands, 0) / pairs.length;
   run(measureDeviation, pairs, tol);
   run(baselineMeasure, pairs, tol);
-  const cur: number[] = [], base: number[] = [];
+  const cur: number[] = [], base: number[] = [], curCpu: number[] = [], baseCpu: number[] = [];
   let cs = 0, bs = 0, cw = 0, bw = 0;
   for (let r = 0; r < runs; r++) {
     const b = run(baselineMeasure, pairs, tol);
     const c = run(measureDeviation, pairs, tol);
-    base.push(b.ms); cur.push(c.ms);
+    base.push(b.ms); cur.push(c.ms); baseCpu.push(b.cpu); curCpu.push(c.cpu);
     bs = b.sum; cs = c.sum; bw = b.worst; cw = c.worst;
     await new Promise((res) => setImmediate(res));
   }
-  const mc = median(cur), mb = median(base);
+  const mc = median(cur), mb = median(base), cc = median(curCpu), cb = median(baseCpu);
   const per = (ms: number): string => `${(ms / pairs.length).toFixed(2)} ms/element`;
   return [
     `measureDeviation: ${pairs.length} closed contours of 2,500 L vertices → ~${commands.toFixed(0)} written commands, tol ${tol} mm, ${runs} runs (median)`,
     `  previous (bench/baseline): ${mb.toFixed(0)} ms/run, ${per(mb)}`,
     `  current:                   ${mc.toFixed(0)} ms/run, ${per(mc)}`,
-    `  speed-up: ${(mb / mc).toFixed(2)}×  (runs ms, previous: ${base.map((x) => x.toFixed(0)).join(' ')}; current: ${cur.map((x) => x.toFixed(0)).join(' ')})`,
+    `  speed-up: ${(mb / mc).toFixed(2)}× wall, ${(cb / cc).toFixed(2)}× process CPU (medians ${cb.toFixed(0)} → ${cc.toFixed(0)} ms/run)`,
+    `  runs, wall ms: previous ${base.map((x) => x.toFixed(0)).join(' ')}; current ${cur.map((x) => x.toFixed(0)).join(' ')}`,
     `  checksum Σmax: previous ${bs.toFixed(6)} mm, current ${cs.toFixed(6)} mm; worst max: previous ${bw.toFixed(6)}, current ${cw.toFixed(6)} mm`,
   ].join('\n');
 }
