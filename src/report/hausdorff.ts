@@ -68,6 +68,8 @@ let max = -Infinity, worstX = NaN, worstY = NaN, res = DEFAULT_RESOLUTION;
 /** Vertex distances and nearest-segment ids of `a`, grown as needed and reused. */
 let vf = new Float64Array(1024);
 let vj = new Int32Array(1024);
+/** Vertex scratch beyond this many points is dropped after use. */
+const KEEP_POINTS = 1 << 18;
 
 /**
  * Directed distance from polylines `a` to polylines `b` (mm), as an upper bound
@@ -129,6 +131,7 @@ export function directedDistance(
     }
     v++; // past the polyline's last vertex
   }
+  if (vf.length > KEEP_POINTS) { vf = new Float64Array(1024); vj = new Int32Array(1024); } // a huge shape's scratch is not kept
   return { max, mean: sum / samples, worstX, worstY, samples };
 }
 

@@ -16,11 +16,13 @@ import { buildSegmentIndex, directedDistance } from './hausdorff.js';
 import { SegmentGrid } from './segmentGrid.js';
 
 /**
- * Sample buffers and grids lent to every measurement in turn (each call uses and
- * drops them before it returns), so steady state allocates no sample arrays or index.
+ * Sample buffers and grids lent to every measurement in turn (each call is done
+ * with them before it returns), so steady state allocates no sample arrays or
+ * index. One grown past KEEP_BYTES by a huge element is dropped after use.
  */
-const bufA = new SampleBuffer(), bufB = new SampleBuffer();
-const gridA = new SegmentGrid(), gridB = new SegmentGrid();
+let bufA = new SampleBuffer(), bufB = new SampleBuffer();
+let gridA = new SegmentGrid(), gridB = new SegmentGrid();
+const KEEP_BYTES = 8 << 20;
 
 /** Chord error and bisection resolution, as fractions of the tolerance. */
 const ERROR_FRACTION = 1 / 1000;
@@ -61,7 +63,10 @@ export function measureDeviation(
     sa = samplePath(original, originalToMm, spacing, chord, bufA);
     sb = samplePath(written, writtenToMm, spacing, chord, bufB);
   }
-  return compareSampled(sa, sb, writtenToMm, chord);
+  const d = compareSampled(sa, sb, writtenToMm, chord);
+  if (bufA.data.byteLength > KEEP_BYTES) bufA = new SampleBuffer();
+  if (bufB.data.byteLength > KEEP_BYTES) bufB = new SampleBuffer();
+  return d;
 }
 
 /**
@@ -74,6 +79,8 @@ export function compareSampled(sa: SampledPath, sb: SampledPath, writtenToMm: Ma
   const slack = sa.errorBound + sb.errorBound;
   const ab = directedDistance(sa.polylines, sb.polylines, ib, resolution);
   const ba = directedDistance(sb.polylines, sa.polylines, ia, resolution);
+  if (gridA.bytes > KEEP_BYTES) gridA = new SegmentGrid();
+  if (gridB.bytes > KEEP_BYTES) gridB = new SegmentGrid();
   const w = ab.max >= ba.max ? ab : ba;
   return {
     max: Math.max(ab.max, ba.max) + slack,

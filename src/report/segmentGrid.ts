@@ -64,6 +64,11 @@ export class SegmentGrid {
   private home = new Int32Array(0);
   /** Listings (segment-in-cell entries) of the current layout. */
   private listed = 0;
+  /** Bytes held in this grid's buffers (so a caller can drop a grid grown by a huge shape). */
+  get bytes(): number {
+    return this.segs.byteLength + this.start.byteLength + this.items.byteLength + this.coords.byteLength + this.home.byteLength;
+  }
+
   /** Segment id of the last query's answer (−1 when the grid is empty). */
   hit = -1;
 

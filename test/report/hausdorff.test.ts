@@ -109,7 +109,7 @@ describe('directedDistance', () => {
     }
   });
 
-  it('seeded random walks with many short segments (candidate reuse): bounded by brute force both ways', () => {
+  it('seeded random walks with many short segments (hinted grid queries, pruned intervals): bounded by brute force both ways', () => {
     const rand = rng(777);
     const walk = (n: number, x: number, y: number, step: number) => {
       const v = new Float64Array(2 * n);
@@ -148,7 +148,7 @@ describe('directedDistance', () => {
     const ms = performance.now() - t0;
     console.log(`directedDistance far apart, 1e5 → 5e4 points: ${ms.toFixed(0)} ms`);
     expectCloseBound(d.max, 5, 105 * (1 - Math.cos(Math.PI / 50_000)) + 1e-5);
-    expect(ms).toBeLessThan(10000); // was minutes with plain box queries (~0.4 s idle now)
+    expect(ms).toBeLessThan(10000); // was minutes with plain box queries (~0.4 s idle with the grid too)
   });
 
   it('empty sides: nothing to measure from → 0; nothing to measure to → Infinity', () => {
