@@ -47,6 +47,10 @@ export interface CliFlags {
   jobs?: number;
   /** `--worker-memory`: heap limit per batch worker in MB, or undefined for the default. */
   workerMemoryMb?: number;
+  /** `--preview`: a PNG file for the overlay picture of one file, or undefined. */
+  preview?: string;
+  /** `--table`: print the per-element table on standard error. */
+  table: boolean;
 }
 
 /** Everything the command line says: inputs, command flags and the library's options. */
@@ -150,6 +154,8 @@ export function buildProgram(out: ProgramOutput, afterHelp: string): Command {
     program.addOption(opt);
   }
   program
+    .option('--table', 'print a table of every element (commands before, pieces after, measured deviation) on standard error')
+    .option('--preview <file.png>', 'draw the original (grey) and the result (arcs and lines in colour, knots, worst spots, a mm scale) into a PNG (one file only)')
     .option('--in-place', 'rewrite each input file itself, keeping a backup FILE.bak')
     .option('--no-backup', 'with --in-place, keep no FILE.bak')
     .option('-q, --quiet', 'print no summary line, table or progress bar (warnings and errors still go to standard error)')
@@ -190,6 +196,8 @@ export function parsedArgs(program: Command): ParsedArgs {
       reportLines: o.reportLines as string | undefined,
       jobs: o.jobs as number | undefined,
       workerMemoryMb: o.workerMemory as number | undefined,
+      preview: o.preview as string | undefined,
+      table: o.table === true,
     },
     options,
   };

@@ -1,9 +1,11 @@
 /**
- * File input and output for the CLI: reading UTF-8 SVG bytes from a file or a
+ * File input and output for the CLI: reading SVG bytes (UTF-8 or UTF-16) from a file or a
  * stream, and atomic writes (a temporary file in the same directory, flushed,
  * then renamed over the target), so a reader never sees a partial file and an
  * error leaves no new file behind.
  */
+import { decodeSvgBytes as decodeText, detectSvgEncoding } from '../svg/decode.js';
+import { SvgInputError } from '../svg/errors.js';
 import { randomBytes } from 'node:crypto';
 import { constants as fsc } from 'node:fs';
 import { lstat, open, realpath, rename, stat, unlink } from 'node:fs/promises';
@@ -75,20 +77,26 @@ export async function readInputBytes(path: string | null, stdin: Readable, name:
 }
 
 /**
- * Decode SVG bytes as UTF-8 (ASCII is a subset). A byte-order mark is kept in
+ * Decode SVG bytes: UTF-8 (ASCII is a subset), UTF-8 with a BOM, or UTF-16 by
+ * its BOM or XML declaration (src/svg/decode.ts). A byte-order mark is kept in
  * the text, so an unchanged document is written back byte for byte.
- * @throws UsageError for UTF-16 or bytes that are not UTF-8
  */
 export function decodeSvgBytes(bytes: Uint8Array, name: string): string {
-  const b0 = bytes[0], b1 = bytes[1];
-  if ((b0 === 0xfe && b1 === 0xff) || (b0 === 0xff && b1 === 0xfe)) {
-    throw new UsageError(`${name}: the file is UTF-16 encoded; arcspline reads UTF-8 SVG files (save it as UTF-8)`);
-  }
   try {
-    return new TextDecoder('utf-8', { fatal: true, ignoreBOM: true }).decode(bytes);
-  } catch {
-    throw new UsageError(`${name}: not valid UTF-8 text (arcspline reads UTF-8 SVG files)`);
+    return decodeText(bytes);
+  } catch (e) {
+    if (e instanceof SvgInputError) throw new UsageError(`${name}: ${e.message}`);
+    throw e;
   }
+}
+
+/** The text in the encoding the input came in (UTF-8, or UTF-16 with its byte order), for writing back. */
+export function encodeLike(text: string, original: Uint8Array): string | Uint8Array {
+  const { encoding } = detectSvgEncoding(original);
+  if (encoding === 'utf-8') return text;
+  const le = Buffer.from(text, 'utf16le');
+  if (encoding === 'utf-16be') le.swap16();
+  return le;
 }
 
 /** Whether two paths name the same existing file (same device and inode, so links count too). */
@@ -193,7 +201,7 @@ export async function writeFileAtomic(path: string, data: string | Uint8Array): 
  * A failed write (EPIPE when the reader has gone) rejects instead of becoming
  * an unhandled 'error' event.
  */
-export function writeToStream(stream: Writable, text: string): Promise<void> {
+export function writeToStream(stream: Writable, text: string | Uint8Array): Promise<void> {
   return new Promise((resolve, reject) => {
     const onError = (err: Error): void => reject(err);
     stream.once('error', onError);

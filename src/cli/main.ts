@@ -10,7 +10,10 @@ import { resolve as resolvePath } from 'node:path';
 import type { Readable, Writable } from 'node:stream';
 import { CommanderError } from 'commander';
 import { OptionError, resolveOptions, type Options } from '../options.js';
-import { refitSvg } from '../refit.js';
+import { refitSvgParallel } from '../refitParallel.js';
+import { formatTable } from '../report/table.js';
+import { writePreview } from './previewCommand.js';
+import { measureMain } from './measureMain.js';
 import { SvgInputError } from '../svg/errors.js';
 import { buildProgram, parsedArgs, type CliFlags, type ParsedArgs } from './args.js';
 import { EXIT_INTERNAL, EXIT_INTERRUPTED, EXIT_OK, EXIT_TOLERANCE, EXIT_USAGE, UsageError } from './exitCodes.js';
@@ -18,8 +21,8 @@ import { runBatch } from './batch.js';
 import { isGlobPattern } from './inputs.js';
 import { failedLine, ReportLineSink } from './reportLines.js';
 import { afterHelpText } from './help.js';
-import { asUsageError, decodeSvgBytes, exists, readInputBytes, sameFile, stageFile, writeToStream, type StagedFile } from './io.js';
-import { choosePaint, problemLines, summaryLine, type Paint } from './summary.js';
+import { asUsageError, decodeSvgBytes, encodeLike, exists, readInputBytes, sameFile, stageFile, writeToStream, type StagedFile } from './io.js';
+import { choosePaint, PLAIN, problemLines, summaryLine, type Paint } from './summary.js';
 
 export { EXIT_INTERNAL, EXIT_INTERRUPTED, EXIT_OK, EXIT_TOLERANCE, EXIT_USAGE } from './exitCodes.js';
 
@@ -58,6 +61,8 @@ const oneLine = (s: string): string => s.replace(/\s*[\r\n]+\s*/g, ' ').trim();
  * @returns the exit code (EXIT_OK, EXIT_TOLERANCE, EXIT_USAGE or EXIT_INTERNAL)
  */
 export async function main(argv: string[], io: Io = processIo()): Promise<number> {
+  // `arcspline measure A.svg B.svg`: compare any two SVG files (./measureMain.ts).
+  if (argv[0] === 'measure') return measureMain(argv.slice(1), io);
   const err = (line: string): void => void io.stderr.write(`${line}\n`);
   const width = Math.min(100, (io.stdout as { columns?: number }).columns ?? 80);
   const program = buildProgram(
@@ -202,6 +207,7 @@ async function batchCommand(args: ParsedArgs, options: Partial<Options>, io: Io)
   const { flags } = args;
   if (flags.inPlace && flags.output !== undefined) throw new UsageError('--in-place and -o cannot be combined (--in-place writes each input file itself)');
   if (flags.report !== undefined) throw new UsageError('--report writes the report of one file; for a batch give --report-lines FILE (one JSON line per file)');
+  if (flags.preview !== undefined) throw new UsageError('--preview draws one file; run once per file for a picture each');
   let signal = io.signal;
   let dispose = (): void => undefined;
   if (signal === undefined && io.stderr === process.stderr) {
@@ -230,7 +236,8 @@ async function refitFile(input: string, flags: CliFlags, options: Partial<Option
   const name = displayName(input);
   const bytes = await readInputBytes(input === STDIO ? null : input, io.stdin, name);
   const text = decodeSvgBytes(bytes, name);
-  const result = refitSvg(text, options, input === STDIO ? null : input);
+  // One file: its elements are shared out over the cores (a batch shares out files instead).
+  const result = await refitSvgParallel(text, options, input === STDIO ? null : input, flags.jobs);
   const reportJson = `${JSON.stringify(result.report, null, 2)}\n`;
   const changed = result.text !== text;
 
@@ -244,10 +251,10 @@ async function refitFile(input: string, flags: CliFlags, options: Partial<Option
           if (await exists(bak)) throw new UsageError(`${bak} exists already; remove it, or give --no-backup`);
           staged.push(await stageFile(bak, bytes));
         }
-        staged.push(await stageFile(input, result.text));
+        staged.push(await stageFile(input, encodeLike(result.text, bytes)));
       }
     } else if (flags.output !== undefined && flags.output !== STDIO) {
-      staged.push(await stageFile(flags.output, result.text));
+      staged.push(await stageFile(flags.output, encodeLike(result.text, bytes)));
     }
     if (flags.report !== undefined && flags.report !== STDIO) staged.push(await stageFile(flags.report, reportJson));
     for (const s of staged) await s.commit();
@@ -256,13 +263,15 @@ async function refitFile(input: string, flags: CliFlags, options: Partial<Option
   }
   const svgToStdout = !flags.inPlace && (flags.output === undefined || flags.output === STDIO);
   try {
-    if (svgToStdout) await writeToStream(io.stdout, result.text);
+    if (svgToStdout) await writeToStream(io.stdout, encodeLike(result.text, bytes));
     if (flags.report === STDIO) await writeToStream(io.stdout, reportJson);
   } catch (e) {
     asUsageError(e, 'write', 'standard output');
   }
   const err = (line: string): void => void io.stderr.write(`${line}\n`);
+  if (flags.preview !== undefined) await writePreview(text, result.text, flags.preview, { report: result.report });
   if (!flags.quiet) err(summaryLine(name, result.report, paint));
+  if (flags.table && !flags.quiet) err(formatTable(result.report, { color: paint !== PLAIN, width: 100 }).trimEnd());
   for (const line of problemLines(name, result.report, paint)) err(line);
   await lines?.write(result.report);
   return result.report.totals.withinTolerance ? EXIT_OK : EXIT_TOLERANCE;
