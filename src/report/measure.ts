@@ -26,7 +26,11 @@ const KEEP_BYTES = 8 << 20;
 
 /** Chord error and bisection resolution, as fractions of the tolerance. */
 const ERROR_FRACTION = 1 / 1000;
-/** Longest chord, as a multiple of the tolerance: sets how dense the `mean` is sampled. */
+/**
+ * Longest chord, as a multiple of the tolerance: sets how dense the `mean` is
+ * sampled (the max needs no spacing: segments are measured exactly), and keeps
+ * segments short, so the index's cells stay small (segmentGrid.ts).
+ */
 const SPACING_FACTOR = 2;
 /** Default cap on sample points (both sides together) per element. */
 export const DEFAULT_MAX_SAMPLES = 2_000_000;
