@@ -14,9 +14,9 @@ import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import { resolveOptions, type Options } from './options.js';
 import { readSvg, type GeometryElement } from './svg/document.js';
-import { assemble, emptyTimes, refitOne, type ElementOutcome, type RefitResult, type StageTimes } from './refit.js';
+import { assemble, emptyTimes, refitOne, refitSvg, type ElementOutcome, type RefitResult, type StageTimes } from './refit.js';
 
-/** Below this much geometry text a second thread costs more than it saves. */
+/** Below this much text a second thread costs more than it saves. */
 export const PARALLEL_MIN_CHARS = 1 << 20;
 
 /** The message a worker gets, and what it answers. */
@@ -63,6 +63,9 @@ function runWorker(url: URL, job: ElementJob): Promise<ElementJobResult> {
 export async function refitSvgParallel(
   text: string, partial: Partial<Options> = {}, file: string | null = null, jobs = availableParallelism(),
 ): Promise<RefitResult> {
+  const url = workerUrl();
+  // Small documents, one thread, or no compiled worker: exactly the one-thread call.
+  if (!url || jobs < 2 || text.length < PARALLEL_MIN_CHARS) return refitSvg(text, partial, file);
   const t0 = performance.now();
   const opts = resolveOptions(partial);
   const times = emptyTimes();
@@ -70,10 +73,8 @@ export async function refitSvgParallel(
   const doc = readSvg(text, { assumedMmPerUnit: opts.assumedMmPerUnit });
   times.parse += performance.now() - t;
   const els = doc.elements.filter((el) => el.rewritable);
-  const url = workerUrl();
-  const total = els.reduce((s, el) => s + weight(el), 0);
   const threads = Math.max(1, Math.min(jobs, els.length));
-  if (!url || threads < 2 || total < PARALLEL_MIN_CHARS) {
+  if (threads < 2) {
     const outcomes = els.map((el) => refitOne(doc, el, opts, times));
     return assemble(text, doc, outcomes, opts, file, times, t0);
   }

@@ -39,8 +39,8 @@ describe('flags onto the options object', () => {
   it('reads the command flags', () => {
     const a = parse(['-', '-o', '-', '--report', 'r.json', '--in-place', '--no-backup', '-q', '--debug']);
     expect(a.inputs).toEqual(['-']);
-    expect(a.flags).toEqual({ output: '-', report: 'r.json', inPlace: true, backup: false, quiet: true, debug: true });
-    expect(parse(['x.svg']).flags).toEqual({ output: undefined, report: undefined, inPlace: false, backup: true, quiet: false, debug: false });
+    expect(a.flags).toEqual({ output: '-', report: 'r.json', inPlace: true, backup: false, quiet: true, debug: true, table: false });
+    expect(parse(['x.svg']).flags).toEqual({ output: undefined, report: undefined, inPlace: false, backup: true, quiet: false, debug: false, table: false });
   });
 
   it('a bad value is a commander error naming the flag and the value', () => {

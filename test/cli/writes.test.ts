@@ -28,12 +28,12 @@ describe('input errors: exit 2, one line naming the file and the reason, no outp
     expect(readdirSync(dir)).toEqual([]);
   });
 
-  it('not an SVG: malformed XML with line:column, an HTML root, UTF-16 and non-UTF-8 bytes', async () => {
+  it('not an SVG: malformed XML with line:column, an HTML root (also in UTF-16), non-UTF-8 bytes', async () => {
     const cases: [string, string | Buffer, RegExp][] = [
       ['text.svg', 'just some text\nnot xml <', /text\.svg: XML error at \d+:\d+: /],
       ['broken.svg', '<svg xmlns="http://www.w3.org/2000/svg">\n  <path d="M0 0"\n</svg>', /broken\.svg: XML error at [23]:\d+: /],
       ['page.svg', '<html><body/></html>', /page\.svg: not an SVG document at 1:1: root element is <html>/],
-      ['wide.svg', Buffer.from('\ufeff<svg/>', 'utf16le'), /wide\.svg: .*UTF-16/],
+      ['wide.svg', Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from('<html/>', 'utf16le')]), /wide\.svg: not an SVG document/],
       ['latin.svg', Buffer.from([0x3c, 0x73, 0x76, 0x67, 0x20, 0xe9, 0x2f, 0x3e]), /latin\.svg: not valid UTF-8/],
     ];
     for (const [name, content, message] of cases) {
