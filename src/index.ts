@@ -26,6 +26,8 @@
  */
 export { refitSvg } from './refit.js';
 export type { RefitResult, StageTimes } from './refit.js';
+/** The same job on several threads (worker threads; same text and report). */
+export { refitSvgParallel } from './refitParallel.js';
 
 /**
  * The options object shared by the CLI and the library: `DEFAULT_OPTIONS`
@@ -57,6 +59,10 @@ export type { Deviation, ElementReport, FileReport } from './report/types.js';
  * over parsed path data and 6-number SVG matrices (user units → mm).
  */
 export { DEFAULT_MAX_SAMPLES, measureDeviation } from './report/measure.js';
+export { polylineDeviation, polylinePath, segmentsToPathData } from './report/polylineDeviation.js';
+export { formatTable } from './report/table.js';
+export { renderPreview } from './report/preview.js';
+export type { PreviewOptions } from './report/preview.js';
 
 /**
  * Measure any two SVG documents against each other:
@@ -72,6 +78,8 @@ export type { Matrix } from './svg/matrixTypes.js';
 
 /** The error for input that is not a readable SVG document (one-line message, 1-based `line` and `column`). */
 export { SvgInputError } from './svg/errors.js';
+export { decodeSvgBytes } from './svg/decode.js';
+export { checkInputSize, DEFAULT_LIMITS } from './limits.js';
 
 /** The package version. */
 export { VERSION } from './version.js';
