@@ -59,6 +59,11 @@ describe('SegmentGrid', () => {
     expect(g.nearest(15, -2)).toBe(2);
     expect(g.nearestFrom(15, -2, 0)).toBe(2);
     expect(g.nearest(-3, 4)).toBe(5);
+    // a segment so short that 1/len² overflows counts as its first point (no NaN)
+    expect(distPointSegment(3, 4, 0, 0, 1e-170, 0)).toBe(5);
+    expect(g.build([Float64Array.of(0, 0, 1e-170, 0)])).toBe(true);
+    expect(g.nearest(3, 4)).toBe(5);
+    expect(g.nearestFrom(3, 4, 0)).toBe(5);
   });
 
   it('nothing to index: build is false; reuse keeps answers of the latest shape only', () => {
