@@ -195,14 +195,9 @@ const BUILT = join(ROOT, 'dist', 'src', 'cli', 'worker.js');
 
 describe('batch through the built binary (worker threads)', () => {
   beforeAll(() => {
-    const started = Date.now();
-    try {
-      execFileSync('npx', ['tsc', '-p', 'tsconfig.json'], { cwd: ROOT, stdio: 'pipe' });
-    } catch (e) {
-      // tsc still emits when another engineer's file has a type error.
-      if (!existsSync(BUILT) || statSync(BUILT).mtimeMs < started - 1000) throw new Error(`build failed:\n${String((e as { stdout?: Buffer }).stdout)}`);
-    }
-  }, 180_000);
+    // dist/ is built once for the whole run by test/globalSetup.ts.
+    if (!existsSync(BUILT)) throw new Error(`${BUILT} is missing: the global test setup builds it`);
+  });
 
   const node = (args: string[]) => spawnSync(process.execPath, [BIN, ...args], { encoding: 'utf8', env: { ...process.env, NO_COLOR: '1', CI: 'true' } });
 

@@ -16,15 +16,9 @@ const BIN = join(ROOT, 'bin', 'arcspline.js');
 const BUILT = join(ROOT, 'dist', 'src', 'cli', 'main.js');
 
 beforeAll(() => {
-  const started = Date.now();
-  try {
-    execFileSync('npx', ['tsc', '-p', 'tsconfig.json'], { cwd: ROOT, stdio: 'pipe' });
-  } catch (e) {
-    // tsc still emits when some other file has a type error; the CLI's own files are checked separately.
-    const out = String((e as { stdout?: Buffer }).stdout ?? '');
-    if (!existsSync(BUILT) || statSync(BUILT).mtimeMs < started - 1000) throw new Error(`build failed:\n${out}`);
-  }
-}, 180_000);
+  // dist/ is built once for the whole run by test/globalSetup.ts.
+  if (!existsSync(BUILT)) throw new Error(`${BUILT} is missing: the global test setup builds it`);
+});
 
 describe('bin/arcspline.js', () => {
   it('INPUT.svg -o OUTPUT.svg --tolerance 0.05mm --report REPORT.json', () => {

@@ -1,5 +1,4 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { execFileSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { refitSvg } from '../../src/refit.js';
@@ -9,17 +8,20 @@ const root = fileURLToPath(new URL('../..', import.meta.url));
 
 describe('refitting on several threads', () => {
   beforeAll(() => {
-    // Worker threads run the compiled library: build it (as `npm ci` does through `prepare`).
-    execFileSync(process.execPath, [`${root}/node_modules/typescript/bin/tsc`, '-p', `${root}/tsconfig.json`], { stdio: 'ignore' });
-  }, 120_000);
+    // Worker threads run the compiled library, built once for the run by test/globalSetup.ts.
+    expect(existsSync(`${root}/dist/src/refitParallel.js`)).toBe(true);
+  });
 
   it('gives exactly the text and report of the one-thread run (worker threads really used)', async () => {
     const built = `${root}/dist/src/refitParallel.js`;
     expect(existsSync(`${root}/dist/src/refitWorker.js`)).toBe(true);
     const { refitSvgParallel, PARALLEL_MIN_CHARS } = (await import(built)) as typeof import('../../src/refitParallel.js');
+    const { refitSvg: builtRefit } = (await import(`${root}/dist/src/refit.js`)) as typeof import('../../src/refit.js');
     const text = bigDrawing(40, 2500); // about 1.9 MB: above the threshold for threads
     expect(text.length).toBeGreaterThan(PARALLEL_MIN_CHARS);
-    const one = refitSvg(text, { tolerance: 0.05 });
+    const one = builtRefit(text, { tolerance: 0.05 });
+    // And the sources agree with the build on the figures that matter.
+    expect(refitSvg(text, { tolerance: 0.05 }).text).toBe(one.text);
     const two = await refitSvgParallel(text, { tolerance: 0.05 }, null, 2);
     expect(two.text).toBe(one.text);
     const strip = (r: typeof one.report): unknown => ({ ...r, timeMs: 0 });
