@@ -3,10 +3,12 @@
  * stands for? Scalar arguments, no allocation: this is the fitter's inner loop.
  *
  * A piece passes when every vertex k in [a, b] lies within `tol` of the piece
- * (and, for an arc, inside its angular sector or within `tol` of an end), and no
- * edge between them dips further than `tol` inside the circle. Since the vertex
- * path then runs continuously through the sector from one end to the other, every
- * point of the piece is within `tol` of the path too (two-sided).
+ * (and, for an arc, inside its angular sector or within `tol` of an end), no
+ * edge between them dips further than `tol` inside the circle, and the arc is no
+ * longer than the vertex path allows (so the path runs along all of it rather
+ * than sitting at its ends). The vertex path then runs continuously through the
+ * sector from one end to the other, so every point of the piece is within `tol`
+ * of the path too (two-sided).
  */
 
 
@@ -42,9 +44,10 @@ export function arcFits(
   const sgn = sweep < 0 ? -1 : 1;
   const large = Math.abs(sweep) > Math.PI;
   const inner = r - tol;
-  let prevX = 0, prevY = 0;
+  let prevX = 0, prevY = 0, path = 0;
   for (let k = a; k <= b; k++) {
     const px = pts[2 * k], py = pts[2 * k + 1];
+    if (k > a) path += Math.hypot(px - prevX, py - prevY);
     const wx = px - cx, wy = py - cy;
     const d = Math.sqrt(wx * wx + wy * wy);
     if (Math.abs(d - r) > tol) return false;
@@ -71,5 +74,9 @@ export function arcFits(
     prevX = px;
     prevY = py;
   }
-  return true;
+  // The vertices must run along the whole arc, not sit near its two ends while it goes round:
+  // its length, shortened to the inner edge of the band, cannot exceed the path's by more than the ends' slack.
+  // The path is counted from the arc's start to the first vertex and from the last vertex to its end too.
+  path += Math.hypot(pts[2 * a] - qx, pts[2 * a + 1] - qy) + Math.hypot(ex - prevX, ey - prevY);
+  return r * Math.abs(sweep) * (1 - (2 * tol) / r) <= path + 2 * tol;
 }
