@@ -1,10 +1,11 @@
 /**
- * End to end over the conformance corpus (/work/shared/corpus/suite, read in
+ * End to end over the conformance corpus (../shared/corpus/suite beside the project, read in
  * place): every listed SVG goes through refitSvg at 0.05 mm with default
  * options; it must not crash, its output must re-parse as XML, an untouched
  * file must come back byte-identical, and a refitted file must render like its
  * input except within the tolerance band around edges (see test/e2e/README.md).
  */
+import { fileURLToPath } from 'node:url';
 import { readFileSync, existsSync, mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { SaxesParser } from 'saxes';
@@ -19,7 +20,8 @@ import {
   compareRasters, overWhite, pxPerRootUnit, readPng, renderSvg, svgSize, writeDiffPng, type Comparison,
 } from './render.js';
 
-const SUITE = '/work/shared/corpus/suite';
+// The corpus lives in shared/ beside the project (as laid for CI too), not inside it.
+const SUITE = fileURLToPath(new URL('../../../shared/corpus/suite', import.meta.url));
 const TOLERANCE = 0.05; // mm, as the task states
 /** Antialiasing allowance added to the tolerance band, px (one pixel of coverage either side plus half a pixel of centre offset; common practice). */
 const AA_PX = 1.5;

@@ -15,7 +15,8 @@ const validate = ajv.compile(schema);
 
 /** The report as a consumer sees it: through JSON (NaN becomes null). */
 const asJson = (r: FileReport): unknown => JSON.parse(JSON.stringify(r));
-const corpus = (p: string): string => readFileSync(`/work/shared/corpus/suite/${p}`, 'utf8');
+// The corpus lives in shared/ beside the project (as laid for CI too).
+const corpus = (p: string): string => readFileSync(new URL(`../../../shared/corpus/suite/${p}`, import.meta.url), 'utf8');
 
 const bracket = refitSvg(readFileSync(new URL('../../samples/bracket.svg', import.meta.url), 'utf8'), {}, 'bracket.svg').report;
 
