@@ -5,17 +5,8 @@
  * real file.
  */
 
-/** Mulberry32: a small seeded generator, so a failure reproduces (common practice). */
-export function seeded(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { rng as seeded } from '../rng.js';
+export { seeded };
 
 /** Page size of every scenario, mm. */
 export const PAGE_W = 60;

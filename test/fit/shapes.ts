@@ -51,17 +51,7 @@ export function slot(len: number, r: number, step: number): Float64Array {
   return Float64Array.from(p);
 }
 
-/** Seeded generator (mulberry32), so a failing case reproduces. */
-export function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+export { rng } from '../rng.js';
 
 /** Apply x' = a x + c y + e, y' = b x + d y + f to every vertex. */
 export function mapXY(xy: Float64Array, a: number, b: number, c: number, d: number, e: number, f: number): Float64Array {

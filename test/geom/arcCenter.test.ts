@@ -3,6 +3,7 @@ import {
   ARC_CENTER_LENGTH, ARC_ELLIPSE, ARC_LINE, ARC_OMITTED,
   arcFromCenter, arcToCenter, arcToCenterInto, type ArcCenter,
 } from '../../src/geom/arcCenter.js';
+import { rng } from '../rng.js';
 
 const DEG = Math.PI / 180;
 
@@ -220,17 +221,6 @@ describe('arcFromCenter: check values', () => {
 });
 
 describe('round trips over seeded random arcs', () => {
-  // mulberry32, a small seeded generator (common practice)
-  function rng(seed: number): () => number {
-    let a = seed >>> 0;
-    return () => {
-      a = (a + 0x6d2b79f5) >>> 0;
-      let t = a;
-      t = Math.imul(t ^ (t >>> 15), t | 1);
-      t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-      return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-    };
-  }
 
   it('centre → endpoints → centre recovers every parameter', () => {
     const r = rng(12345);

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { semiAxesInto, maxSemiAxis, transformArcShape, type ArcShape } from '../../src/geom/ellipseImage.js';
 import { arcToCenter, arcFromCenter, type ArcCenter } from '../../src/geom/arcCenter.js';
+import { rng } from '../rng.js';
 
 const DEG = Math.PI / 180;
 
@@ -118,17 +119,6 @@ describe('transformArcShape: check values', () => {
 });
 
 describe('transformArcShape: centre and midpoint under seeded random maps', () => {
-  // mulberry32 (common practice)
-  function rng(seed: number): () => number {
-    let a = seed >>> 0;
-    return () => {
-      a = (a + 0x6d2b79f5) >>> 0;
-      let t = a;
-      t = Math.imul(t ^ (t >>> 15), t | 1);
-      t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-      return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-    };
-  }
 
   it('centre maps to M·centre, mapped midpoint is the new arc midpoint (< 1e-9 relative)', () => {
     // REFERENCES.md §5.2 "numerically verified" paragraph

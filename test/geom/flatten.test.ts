@@ -4,6 +4,7 @@ import { cubicFlatness, quadFlatness, stepsForFlatness } from '../../src/geom/be
 import { arcToCenter } from '../../src/geom/arcCenter.js';
 import { OP_A, OP_C, OP_L, OP_M, OP_Q, OP_Z, OP_ARGS, type PathData } from '../../src/svg/pathTypes.js';
 import type { Contour } from '../../src/geom/contour.js';
+import { rng } from '../rng.js';
 
 // ---- helpers (independent of the code under test) ----
 
@@ -23,17 +24,6 @@ const I = Float64Array.of(1, 0, 0, 1, 0, 0);
 const m6 = (a: number, b: number, c: number, d: number, e: number, f: number): Float64Array =>
   Float64Array.of(a, b, c, d, e, f);
 
-// mulberry32 (common practice)
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 type Pt = [number, number];
 type Curve = (t: number) => Pt;

@@ -1,19 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { buildSegmentIndex, directedDistance, distPointSegment, hausdorff } from '../../src/report/hausdorff.js';
+import { rng } from '../rng.js';
 
 const F = (...v: number[]) => Float64Array.from(v);
 
-/** Seeded generator (mulberry32, common practice) so a failure reproduces. */
-function rng(seed: number): () => number {
-  let s = seed >>> 0;
-  return () => {
-    s = (s + 0x6d2b79f5) >>> 0;
-    let t = s;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function circle(r: number, n: number, phase = 0, cx = 0, cy = 0): Float64Array {
   const out = new Float64Array(2 * (n + 1));

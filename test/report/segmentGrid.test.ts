@@ -1,17 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { SegmentGrid, distPointSegment } from '../../src/report/segmentGrid.js';
+import { rng } from '../rng.js';
 
-/** Seeded generator (mulberry32, common practice) so a failure reproduces. */
-function rng(seed: number): () => number {
-  let s = seed >>> 0;
-  return () => {
-    s = (s + 0x6d2b79f5) >>> 0;
-    let t = s;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** Brute force over every segment (kept here, independent of the grid). */
 function brute(polylines: Float64Array[], px: number, py: number): number {

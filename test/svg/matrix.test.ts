@@ -3,18 +3,8 @@ import {
   applyX, applyY, determinant, identityMatrix, invert, isSimilarity, matrix,
   maxScale, minScale, multiply, transformBuffer,
 } from '../../src/svg/matrix.js';
+import { rng } from '../rng.js';
 
-/** Seeded generator (mulberry32) so a failing random case reproduces. */
-function rng(seed: number): () => number {
-  let s = seed >>> 0;
-  return () => {
-    s = (s + 0x6d2b79f5) >>> 0;
-    let t = s;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function randomMatrix(r: () => number) {
   return matrix(r() * 4 - 2, r() * 4 - 2, r() * 4 - 2, r() * 4 - 2, r() * 200 - 100, r() * 200 - 100);

@@ -1,16 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { parseNumberList, scanNumber, skipCommaWsp, type NumberScan } from '../../src/svg/numbers.js';
+import { rng } from '../rng.js';
 
-function rng(seed: number): () => number {
-  let s = seed >>> 0;
-  return () => {
-    s = (s + 0x6d2b79f5) >>> 0;
-    let t = s;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function scan(s: string, i = 0): NumberScan | null {
   const out: NumberScan = { value: 0, end: 0 };
