@@ -29,23 +29,10 @@ import { Progress, progressWanted } from './progress.js';
 import { failedLine, ReportLineSink } from './reportLines.js';
 import { choosePaint, formatBytes, problemLines, summaryLine } from './summary.js';
 import type { FileDone, FileOutcome } from './worker.js';
+import type { CliFlags } from './args.js';
 
-/** The command-line flags a batch uses. */
-export interface BatchFlags {
-  /** Output directory; undefined with `inPlace`. */
-  output?: string;
-  inPlace: boolean;
-  /** Keep FILE.bak in place (false with `--no-backup`). */
-  backup: boolean;
-  quiet: boolean;
-  debug: boolean;
-  /** `--report-lines` target, `-` for standard output. */
-  reportLines?: string;
-  /** Files refitted at once; default `os.availableParallelism()`. */
-  jobs?: number;
-  /** Heap limit per worker, MB; default DEFAULT_WORKER_MEMORY_MB. */
-  workerMemoryMb?: number;
-}
+/** The command-line flags a batch uses (`output` is the output directory; undefined with `inPlace`). */
+export type BatchFlags = Pick<CliFlags, 'output' | 'inPlace' | 'backup' | 'quiet' | 'debug' | 'reportLines' | 'jobs' | 'workerMemoryMb'>;
 
 /** Streams and environment of a batch. */
 export interface BatchIo {
