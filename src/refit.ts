@@ -198,11 +198,10 @@ function refitElement(
   times.flatten += now() - t;
   t = now();
   const fitted: EmitContour[] = [];
-  let arcs = 0, lines = 0, moves = 0;
+  let moves = 0;
   for (const c of contours) {
     const r = fitPolyline(c.xy, { tolerance: fitTol, closed: c.closed, cornerAngle: opts.cornerAngle, corners: c.corners });
     fitted.push({ segments: r.segments, closed: c.closed });
-    for (const s of r.segments) if (s.kind === 'arc') arcs++; else lines++;
     moves += straightMoves(c, tol);
   }
   times.fit += now() - t;
@@ -219,8 +218,6 @@ function refitElement(
   const d = sink.toString();
   times.write += now() - t;
   report.segmentsAfter = { arcs: stats.arcs, lines: stats.lines };
-  void arcs;
-  void lines;
   const written = parsePathData(d);
   // Already as short as it can be: only lines and arcs, and no fewer drawing commands after fitting.
   if (!curved && el.name === 'path' && drawingCommands(written) >= drawingCommands(p)) {

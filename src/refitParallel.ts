@@ -69,7 +69,7 @@ export async function refitSvgParallel(
   const t0 = performance.now();
   const opts = resolveOptions(partial);
   const times = emptyTimes();
-  let t = performance.now();
+  const t = performance.now();
   const doc = readSvg(text, { assumedMmPerUnit: opts.assumedMmPerUnit });
   times.parse += performance.now() - t;
   const els = doc.elements.filter((el) => el.rewritable);
@@ -88,7 +88,6 @@ export async function refitSvgParallel(
     load[k] += weight(el);
   }
   const pending = bins.slice(1).map((b) => runWorker(url, { kind: 'arcspline-elements', text, rootToMm: doc.rootToMm, elements: b, opts }));
-  t = performance.now();
   const mine = bins[0].map((el) => refitOne(doc, el, opts, times));
   const results = await Promise.all(pending);
   const byIndex = new Map<number, ElementOutcome>();
@@ -97,7 +96,6 @@ export async function refitSvgParallel(
     for (const o of r.outcomes) byIndex.set(o.index, o);
     for (const k of Object.keys(times) as (keyof StageTimes)[]) times[k] += r.times[k];
   }
-  void t;
   const outcomes = els.map((el) => byIndex.get(el.index)!);
   return assemble(text, doc, outcomes, opts, file, times, t0);
 }
