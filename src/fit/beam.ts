@@ -13,7 +13,9 @@
  * that reaches the end gives the piece count.
  */
 import { makePiece, type Piece } from './piece.js';
+import { len2 } from './check.js';
 import { biarcClosure, TANGENT_EPS } from './closure.js';
+
 
 interface Node {
   a: number;
@@ -89,7 +91,7 @@ function childNode(parent: Node, piece: Piece, piece2: Piece | null, b: number, 
   const pts = p.pts;
   const lo = Math.max(p.start, b - 1), hi = Math.min(p.last, b + 1);
   const ex = pts[2 * hi] - pts[2 * lo], ey = pts[2 * hi + 1] - pts[2 * lo + 1];
-  const el = Math.hypot(ex, ey);
+  const el = len2(ex, ey);
   const err = el > 0 ? Math.abs(last.tx * ey - last.ty * ex) / el : 0;
   return {
     a: next, qx: last.x1, qy: last.y1, bp: last.mp, bq: last.mq, br: last.mr, tx: last.tx, ty: last.ty,
@@ -118,7 +120,7 @@ function expand(n: Node, p: SearchParams, onTerminal: (t: Node) => void): void {
       // A straight piece along the current tangent, ending at P_b's foot on it.
       const proj = (ex - n.qx) * n.tx + (ey - n.qy) * n.ty;
       const fx = n.qx + proj * n.tx, fy = n.qy + proj * n.ty;
-      const off = Math.hypot(ex - fx, ey - fy);
+      const off = len2(ex - fx, ey - fy);
       if (proj > 0 && off <= tol) {
         if (off > 0) {
           const lp = makePiece(pts, n.a, b, n.bp, n.bq, n.br, n.qx, n.qy, fx, fy, tol);

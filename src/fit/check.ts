@@ -12,6 +12,9 @@
  */
 
 
+/** √(x² + y²): Math.hypot guards against overflow we cannot meet here, and costs several times more. */
+export const len2 = (x: number, y: number): number => Math.sqrt(x * x + y * y);
+
 /** Distance from (px, py) to the segment (ax, ay)–(bx, by). */
 export function distPointSegment(px: number, py: number, ax: number, ay: number, bx: number, by: number): number {
   const dx = bx - ax, dy = by - ay;
@@ -47,7 +50,7 @@ export function arcFits(
   let prevX = 0, prevY = 0, path = 0;
   for (let k = a; k <= b; k++) {
     const px = pts[2 * k], py = pts[2 * k + 1];
-    if (k > a) path += Math.hypot(px - prevX, py - prevY);
+    if (k > a) path += len2(px - prevX, py - prevY);
     const wx = px - cx, wy = py - cy;
     const d = Math.sqrt(wx * wx + wy * wy);
     if (Math.abs(d - r) > tol) return false;
@@ -56,7 +59,7 @@ export function arcFits(
     const inSector = large ? afterStart || beforeEnd : afterStart && beforeEnd;
     if (!inSector) {
       // Outside the sector: acceptable only near an end of the arc.
-      const dq = Math.hypot(px - qx, py - qy), de = Math.hypot(px - ex, py - ey);
+      const dq = len2(px - qx, py - qy), de = len2(px - ex, py - ey);
       if (dq > tol && de > tol) return false;
     }
     if (k > a && inner > 0) {
@@ -77,6 +80,6 @@ export function arcFits(
   // The vertices must run along the whole arc, not sit near its two ends while it goes round:
   // its length, shortened to the inner edge of the band, cannot exceed the path's by more than the ends' slack.
   // The path is counted from the arc's start to the first vertex and from the last vertex to its end too.
-  path += Math.hypot(pts[2 * a] - qx, pts[2 * a + 1] - qy) + Math.hypot(ex - prevX, ey - prevY);
+  path += len2(pts[2 * a] - qx, pts[2 * a + 1] - qy) + len2(ex - prevX, ey - prevY);
   return r * Math.abs(sweep) * (1 - (2 * tol) / r) <= path + 2 * tol;
 }

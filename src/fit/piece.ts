@@ -4,7 +4,8 @@
  * vertices it stands for.
  */
 import { arcStepScalar } from '../pga/arcStep.js';
-import { arcFits, lineFits } from './check.js';
+import { arcFits, len2, lineFits } from './check.js';
+
 
 /** A piece between two knots, with the motor that carries its start to its end. */
 export interface Piece {
@@ -56,7 +57,7 @@ export function makePiece(
     return { kind: 'line', ms: 1, mp: -0.5 * dx, mq: -0.5 * dy, mr: 0, x0: qx, y0: qy, x1: ex, y1: ey, a, b, tx: dx / chord, ty: dy / chord };
   }
   const cx = -m[2] / r, cy = m[1] / r;
-  const rad = Math.hypot(qx - cx, qy - cy);
+  const rad = len2(qx - cx, qy - cy);
   const sweep = -2 * Math.atan2(r, s);
   if (!arcFits(pts, a, b, cx, cy, rad, sweep, qx, qy, ex, ey, tol)) return null;
   // Tangent at the end: the radius vector turned by ±90° in the sweep direction.
@@ -68,12 +69,12 @@ export function makePiece(
 /** Unit tangent at the start of a piece (for tests and the closure). */
 export function pieceStartTangent(p: Piece): [number, number] {
   if (p.kind === 'line') {
-    const l = Math.hypot(p.x1 - p.x0, p.y1 - p.y0);
+    const l = len2(p.x1 - p.x0, p.y1 - p.y0);
     return [(p.x1 - p.x0) / l, (p.y1 - p.y0) / l];
   }
   const r = p.mr;
   const cx = -p.mq / r, cy = p.mp / r;
-  const rad = Math.hypot(p.x0 - cx, p.y0 - cy);
+  const rad = len2(p.x0 - cx, p.y0 - cy);
   const sg = -2 * Math.atan2(r, p.ms) > 0 ? 1 : -1;
   return [(-sg * (p.y0 - cy)) / rad, (sg * (p.x0 - cx)) / rad];
 }
