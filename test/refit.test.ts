@@ -1,0 +1,49 @@
+import { describe, expect, it } from 'vitest';
+import { refitSvg } from '../src/refit.js';
+import { compareSvg } from '../src/report/compare.js';
+import { readSvg } from '../src/svg/document.js';
+import { parsePathData } from '../src/svg/pathData.js';
+import { OP_A, OP_ARGS } from '../src/svg/pathTypes.js';
+
+/** A dense polyline circle (our own test data) inside a group scaled 2 × 1: an ellipse on the machine. */
+function doc(): string {
+  const pts: string[] = [];
+  for (let i = 0; i < 720; i++) {
+    const a = (2 * Math.PI * i) / 720;
+    pts.push(`${(20 + 10 * Math.cos(a)).toFixed(4)},${(20 + 10 * Math.sin(a)).toFixed(4)}`);
+  }
+  return `<svg xmlns="http://www.w3.org/2000/svg" width="80mm" height="40mm" viewBox="0 0 80 40">
+<g transform="scale(2 1)"><polygon id="p" points="${pts.join(' ')}"/></g>
+</svg>`;
+}
+
+/** rx, ry of every arc command of the element with this id in a document. */
+function arcRadii(svg: string, id: string): [number, number][] {
+  const el = readSvg(svg, { assumedMmPerUnit: 1 }).elements.find((e) => e.id === id)!;
+  const p = parsePathData(el.attrs.d);
+  const out: [number, number][] = [];
+  for (let i = 0, j = 0; i < p.ops.length; j += OP_ARGS[p.ops[i]], i++) if (p.ops[i] === OP_A) out.push([p.args[j], p.args[j + 1]]);
+  return out;
+}
+
+describe('coordinates of the written arcs', () => {
+  const tol = 0.05;
+  it('by default arcs stay in the element\'s own units: elliptical there under scale(2 1), exact on the machine (REFERENCES.md §5.2)', () => {
+    const r = refitSvg(doc(), { tolerance: tol });
+    const radii = arcRadii(r.text, 'p');
+    expect(radii.length).toBeGreaterThan(0);
+    // The fitted arcs are circles in mm; under the inverse of scale(2 1) they are ellipses with rx = ry / 2.
+    expect(radii.some(([rx, ry]) => Math.abs(rx - ry) > 1e-3 * ry)).toBe(true);
+    expect(r.report.totals.maxDeviation).toBeLessThanOrEqual(tol);
+    expect(compareSvg(doc(), r.text, { tolerance: tol }).totals.withinTolerance).toBe(true);
+  });
+
+  it('--bake-transforms writes circular arcs (rx = ry) in root units, with the ancestors undone by the element', () => {
+    const r = refitSvg(doc(), { tolerance: tol, bakeTransforms: true });
+    const radii = arcRadii(r.text, 'p');
+    expect(radii.length).toBeGreaterThan(0);
+    for (const [rx, ry] of radii) expect(rx).toBeCloseTo(ry, 9);
+    expect(r.text).toMatch(/<path id="p" [^>]*transform="matrix\(0\.5 0 0 1 0 0\)"/);
+    expect(compareSvg(doc(), r.text, { tolerance: tol }).totals.withinTolerance).toBe(true);
+  });
+});
