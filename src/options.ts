@@ -17,6 +17,8 @@ export interface Options {
   assumedMmPerUnit: number;
   /** Decimal places for written coordinates; null derives them from the tolerance. */
   digits: number | null;
+  /** Largest input accepted, in bytes (characters for a string); larger inputs are refused before parsing. */
+  maxInputBytes: number;
 }
 
 export interface OptionDoc {
@@ -31,6 +33,7 @@ export const DEFAULT_OPTIONS: Readonly<Options> = Object.freeze({
   shapesAsPaths: false,
   assumedMmPerUnit: 25.4 / 96,
   digits: null,
+  maxInputBytes: 256 * 2 ** 20,
 });
 
 export const OPTION_DOCS: Readonly<Record<keyof Options, OptionDoc>> = Object.freeze({
@@ -40,6 +43,7 @@ export const OPTION_DOCS: Readonly<Record<keyof Options, OptionDoc>> = Object.fr
   shapesAsPaths: { meaning: 'rewrite exact circle/ellipse/rect elements as paths too', unit: 'flag' },
   assumedMmPerUnit: { meaning: 'size of one user unit when the file states no physical size', unit: 'mm' },
   digits: { meaning: 'decimal places written (default: derived from the tolerance)', unit: 'count' },
+  maxInputBytes: { meaning: 'largest input accepted; larger files are refused before reading (memory: plan for about 20x the file size)', unit: 'bytes' },
 });
 
 /** Error for an option value a user gave; its message names the option and the bad value. */
@@ -56,6 +60,7 @@ export function resolveOptions(partial: Partial<Options> = {}): Options {
     shapesAsPaths: partial.shapesAsPaths ?? DEFAULT_OPTIONS.shapesAsPaths,
     assumedMmPerUnit: partial.assumedMmPerUnit ?? DEFAULT_OPTIONS.assumedMmPerUnit,
     digits: partial.digits === undefined ? DEFAULT_OPTIONS.digits : partial.digits,
+    maxInputBytes: partial.maxInputBytes ?? DEFAULT_OPTIONS.maxInputBytes,
   };
   if (!(o.tolerance > 0) || !Number.isFinite(o.tolerance)) {
     throw new OptionError(`tolerance must be a positive number of mm, got ${String(partial.tolerance)}`);
@@ -68,6 +73,9 @@ export function resolveOptions(partial: Partial<Options> = {}): Options {
   }
   if (o.digits !== null && !(Number.isInteger(o.digits) && o.digits >= 0 && o.digits <= 12)) {
     throw new OptionError(`digits must be a whole number from 0 to 12, got ${String(partial.digits)}`);
+  }
+  if (!(o.maxInputBytes > 0) || !Number.isFinite(o.maxInputBytes)) {
+    throw new OptionError(`maxInputBytes must be a positive number of bytes, got ${String(partial.maxInputBytes)}`);
   }
   return o;
 }

@@ -76,7 +76,7 @@ export function refitSvg(text: string, partial: Partial<Options> = {}, file: str
   const opts = resolveOptions(partial);
   const times = emptyTimes();
   const t = now();
-  const doc = readSvg(text, { assumedMmPerUnit: opts.assumedMmPerUnit });
+  const doc = readSvg(text, { assumedMmPerUnit: opts.assumedMmPerUnit, maxInputChars: opts.maxInputBytes });
   times.parse += now() - t;
   const outcomes = doc.elements.filter((el) => el.rewritable).map((el) => refitOne(doc, el, opts, times));
   return assemble(text, doc, outcomes, opts, file, times, t0);

@@ -70,7 +70,7 @@ export async function refitSvgParallel(
   const opts = resolveOptions(partial);
   const times = emptyTimes();
   const t = performance.now();
-  const doc = readSvg(text, { assumedMmPerUnit: opts.assumedMmPerUnit });
+  const doc = readSvg(text, { assumedMmPerUnit: opts.assumedMmPerUnit, maxInputChars: opts.maxInputBytes });
   times.parse += performance.now() - t;
   const els = doc.elements.filter((el) => el.rewritable);
   const threads = Math.max(1, Math.min(jobs, els.length));

@@ -18,6 +18,7 @@ export const OPTION_FLAGS: Readonly<Record<keyof Options, string>> = Object.free
   shapesAsPaths: '--shapes-as-paths',
   assumedMmPerUnit: '--unitless-size <length>',
   digits: '--digits <n>',
+  maxInputBytes: '--max-input <MB>',
 });
 
 /** Commander's attribute name for each option's flag (the camel-cased long flag). */
@@ -28,6 +29,7 @@ const ATTRIBUTE: Readonly<Record<keyof Options, string>> = Object.freeze({
   shapesAsPaths: 'shapesAsPaths',
   assumedMmPerUnit: 'unitlessSize',
   digits: 'digits',
+  maxInputBytes: 'maxInput',
 });
 
 /** Flags of the command itself (not library options), as parsed. */
@@ -117,6 +119,7 @@ const PARSERS: Readonly<Partial<Record<keyof Options, (text: string) => unknown>
   cornerAngle: (t: string) => validated('cornerAngle', parseNumber(t, 'degrees')),
   assumedMmPerUnit: parseUnitlessSize,
   digits: (t: string) => validated('digits', parseNumber(t, 'decimal places')),
+  maxInputBytes: (t: string) => validated('maxInputBytes', Math.round(parseNumber(t, 'MB') * 2 ** 20)),
 });
 
 /** A default as `--help` shows it, from DEFAULT_OPTIONS; an empty string when the meaning says it already. */
@@ -125,6 +128,7 @@ export function describeDefault(key: keyof Options): string {
   const unit = OPTION_DOCS[key].unit;
   if (v === null) return '';
   if (typeof v === 'boolean') return v ? 'on' : 'off';
+  if (key === 'maxInputBytes') return `${v / 2 ** 20} MB`;
   return `${+v.toPrecision(7)} ${unit}`;
 }
 

@@ -16,6 +16,10 @@ import { UsageError } from './exitCodes.js';
 /** Largest input accepted before decoding, bytes (the reader's own cap is 256 Mi characters). */
 export const MAX_INPUT_BYTES = 1024 * 1024 * 1024;
 
+function tooLarge(name: string, bytes: number, limit: number): never {
+  throw new UsageError(`${name}: ${(bytes / 2 ** 20).toFixed(1)} MB is more than the input limit of ${(limit / 2 ** 20).toFixed(1)} MB; raise it with --max-input <MB> if the machine has the memory (plan for about 20x the file size)`);
+}
+
 /** Short reasons for the file-system errors a user can cause and fix. */
 const FS_REASONS: Readonly<Record<string, string>> = Object.freeze({
   ENOENT: 'no such file or directory',
@@ -47,15 +51,15 @@ export function asUsageError(e: unknown, verb: string, path: string): never {
   throw e;
 }
 
-/** Read a whole file (or, for `null`, the stream) as bytes, refusing more than MAX_INPUT_BYTES. */
-export async function readInputBytes(path: string | null, stdin: Readable, name: string): Promise<Uint8Array> {
+/** Read a whole file (or, for `null`, the stream) as bytes, refusing more than `limit` bytes (before reading a file). */
+export async function readInputBytes(path: string | null, stdin: Readable, name: string, limit = MAX_INPUT_BYTES): Promise<Uint8Array> {
   if (path === null) {
     const parts: Buffer[] = [];
     let n = 0;
     for await (const chunk of stdin) {
       const b = typeof chunk === 'string' ? Buffer.from(chunk) : (chunk as Buffer);
       n += b.length;
-      if (n > MAX_INPUT_BYTES) throw new UsageError(`${name}: input larger than ${MAX_INPUT_BYTES} bytes`);
+      if (n > limit) tooLarge(name, n, limit);
       parts.push(b);
     }
     return Buffer.concat(parts);
@@ -63,7 +67,7 @@ export async function readInputBytes(path: string | null, stdin: Readable, name:
   try {
     const st = await stat(path);
     if (st.isDirectory()) throw new UsageError(`cannot read ${path}: is a directory`);
-    if (st.size > MAX_INPUT_BYTES) throw new UsageError(`${path}: file larger than ${MAX_INPUT_BYTES} bytes`);
+    if (st.size > limit) tooLarge(path, st.size, limit);
     const fh = await open(path, 'r');
     try {
       return await fh.readFile();

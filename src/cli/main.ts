@@ -234,7 +234,7 @@ async function batchCommand(args: ParsedArgs, options: Partial<Options>, io: Io)
 /** Read, refit and write one input; returns EXIT_OK or EXIT_TOLERANCE. Throws user errors. */
 async function refitFile(input: string, flags: CliFlags, options: Partial<Options>, io: Io, paint: Paint, lines: ReportLineSink | null): Promise<number> {
   const name = displayName(input);
-  const bytes = await readInputBytes(input === STDIO ? null : input, io.stdin, name);
+  const bytes = await readInputBytes(input === STDIO ? null : input, io.stdin, name, resolveOptions(options).maxInputBytes);
   const text = decodeSvgBytes(bytes, name);
   // One file: its elements are shared out over the cores (a batch shares out files instead).
   const result = await refitSvgParallel(text, options, input === STDIO ? null : input, flags.jobs);

@@ -8,7 +8,7 @@
  * (./batch.ts), so terminating a worker can never leave a partial file.
  */
 import { isMainThread, parentPort, workerData } from 'node:worker_threads';
-import { OptionError, type Options } from '../options.js';
+import { OptionError, resolveOptions, type Options } from '../options.js';
 import { refitSvg } from '../refit.js';
 import type { FileReport } from '../report/types.js';
 import { SvgInputError } from '../svg/errors.js';
@@ -65,7 +65,7 @@ const NO_STDIN = Readable.from([]);
 /** Read and refit one file; never throws (every failure becomes a FileFailed). */
 export async function processFile(task: FileTask, options: Partial<Options>): Promise<FileOutcome> {
   try {
-    const bytes = await readInputBytes(task.path, NO_STDIN, task.path);
+    const bytes = await readInputBytes(task.path, NO_STDIN, task.path, resolveOptions(options).maxInputBytes);
     const text = decodeSvgBytes(bytes, task.path);
     const result = refitSvg(text, options, task.path);
     return {

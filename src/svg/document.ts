@@ -39,7 +39,7 @@ import { parseTransform } from './transform.js';
 import { lengthToUser, mmPerPx } from './units.js';
 import { parsePreserveAspectRatio, parseViewBox, rootToMm, viewBoxTransform } from './viewport.js';
 import { errorAt, SvgInputError } from './errors.js';
-import { createEntityGuard } from './xmlSafety.js';
+import { createEntityGuard, XML_LIMITS } from './xmlSafety.js';
 
 /** The SVG namespace URI. */
 export const SVG_NS = 'http://www.w3.org/2000/svg';
@@ -90,6 +90,8 @@ export interface SvgDocument {
 export interface ReadOptions {
   /** Millimetres per user unit when the file states no physical size. */
   assumedMmPerUnit: number;
+  /** Largest input accepted, characters (default XML_LIMITS.maxInputChars). */
+  maxInputChars?: number;
 }
 
 const GEOMETRY = new Set<string>(['path', 'rect', 'circle', 'ellipse', 'line', 'polyline', 'polygon']);
@@ -114,7 +116,8 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
   const parser = new SaxesParser({ xmlns: false });
   // saxes skips a leading BOM itself and counts it in `position`, so every
   // offset below is an index into the original `text`.
-  const guard = createEntityGuard(text, () => parser.position);
+  const limits = opts.maxInputChars === undefined ? XML_LIMITS : { ...XML_LIMITS, maxInputChars: opts.maxInputChars };
+  const guard = createEntityGuard(text, () => parser.position, limits);
   parser.ENTITIES = guard.table;
   const warnings: string[] = [];
   const elements: GeometryElement[] = [];

@@ -63,4 +63,16 @@ describe('the proof on the command line: table, preview, measure', () => {
     expect([bytes[0], bytes[1]]).toEqual([0xff, 0xfe]);
     expect(bytes.subarray(2).toString('utf16le')).toMatch(/<path id="outline" d="M/);
   });
+
+  it('refuses an input over --max-input before reading, naming the limit and how to raise it; the library refuses too', async () => {
+    dir = scratch();
+    const big = join(dir.dir, 'big.svg');
+    writeFileSync(big, readFileSync(SAMPLE, 'utf8')); // 32 kB
+    const r = await run([big, '-o', join(dir.dir, 'out.svg'), '--max-input', '0.01']);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/more than the input limit of 0\.0 MB; raise it with --max-input/);
+    expect(existsSync(join(dir.dir, 'out.svg'))).toBe(false);
+    const { refitSvg } = await import('../../src/refit.js');
+    expect(() => refitSvg(readFileSync(SAMPLE, 'utf8'), { maxInputBytes: 1000 })).toThrow(/input too large/);
+  });
 });
