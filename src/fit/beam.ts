@@ -210,28 +210,25 @@ export function searchSpline(p: SearchParams): SearchResult {
   while (frontier.length > 0) {
     const level = frontier[0].level;
     if (best && (best as Node).level <= level + 1) break;
-    const byKnot = new Map<number, Node[]>();
+    // The children of this level, farthest knot first, best tangent first within a knot.
+    const all: Node[] = [];
     for (const n of frontier) {
       for (const c of n.children ?? []) {
         if (c.a === p.last || c.level !== level + 1) continue;
         if (!farthest || c.a > farthest.a) farthest = c;
-        const list = byKnot.get(c.a);
-        if (!list) byKnot.set(c.a, [c]);
-        else {
-          list.push(c);
-          if (list.length > PER_KNOT) {
-            list.sort((u, v) => u.err - v.err);
-            list.length = PER_KNOT;
-          }
-        }
+        all.push(c);
       }
     }
     // Unkept children must die young: drop the expanded lists of this level.
     for (const n of frontier) n.children = null;
-    let cand: Node[] = [];
-    for (const list of byKnot.values()) for (const c of list) cand.push(c);
-    cand.sort((u, v) => v.a - u.a || u.err - v.err);
-    if (cand.length > CANDIDATES * p.width) cand = cand.slice(0, Math.ceil(CANDIDATES * p.width));
+    all.sort((u, v) => v.a - u.a || u.err - v.err);
+    // At most PER_KNOT per knot vertex, and the first CANDIDATES × width of those.
+    const limit = Math.ceil(CANDIDATES * p.width);
+    const cand: Node[] = [];
+    for (let i = 0, run = 0; i < all.length && cand.length < limit; i++) {
+      run = i > 0 && all[i].a === all[i - 1].a ? run + 1 : 0;
+      if (run < PER_KNOT) cand.push(all[i]);
+    }
     for (const c of cand) expand(c, p, onTerminal);
     cand.sort((u, v) => v.reach - u.reach || v.a - u.a || u.err - v.err);
     frontier = cand.slice(0, p.width);
