@@ -107,6 +107,8 @@ export function assemble(
   text: string, doc: SvgDocument, outcomes: ElementOutcome[], opts: Options, file: string | null, times: StageTimes, t0: number,
 ): RefitResult {
   const warnings = doc.warnings.slice();
+  const untouched = untouchedSummary(doc);
+  if (untouched) warnings.push(untouched);
   const edits: Edit[] = [];
   const elements: ElementReport[] = [];
   for (const o of outcomes) {
@@ -244,6 +246,18 @@ function refitElement(
   }
   report.kept = false;
   return { report, edits: elementEdits(doc, el, d, opts) };
+}
+
+/** One line naming the geometry left as written because it is not drawn where it stands (or cannot be), by reason. */
+function untouchedSummary(doc: SvgDocument): string | null {
+  const byReason = new Map<string, number>();
+  for (const el of doc.elements) if (!el.rewritable) byReason.set(el.reason ?? 'not rewritable', (byReason.get(el.reason ?? 'not rewritable') ?? 0) + 1);
+  if (byReason.size === 0) return null;
+  let total = 0;
+  for (const n of byReason.values()) total += n;
+  const parts = [...byReason].slice(0, 3).map(([r, n]) => (n > 1 ? `${n}× ${r}` : r));
+  if (byReason.size > 3) parts.push(`${byReason.size - 3} more reasons`);
+  return `${total} geometry element${total > 1 ? 's' : ''} left as written: ${parts.join('; ')}`;
 }
 
 /** Segments drawn (every command but moveto; a Z draws the closing line). */
