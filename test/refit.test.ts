@@ -49,7 +49,7 @@ describe('coordinates of the written arcs', () => {
 });
 
 describe('geometry that is not rewritten is said so', () => {
-  it('one warning line counts the untouched elements by reason (defs: SVG 1.1 §5.3.2 'The defs element', section number from memory: never rendered in place)', () => {
+  it('one warning line counts the untouched elements by reason (defs: SVG 1.1 §5.3.2, the defs element, section number from memory: never rendered in place)', () => {
     const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="10mm" height="10mm" viewBox="0 0 10 10">
 <defs><path id="a" d="M0 0 C 1 1 2 1 3 0"/></defs><g transform="scale(0)"><path d="M0 0 C 1 1 2 1 3 0"/></g><path d="M0 0 C 1 1 2 1 3 0"/></svg>`;
     const r = refitSvg(svg, { tolerance: 0.05 });
