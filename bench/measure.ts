@@ -23,38 +23,17 @@ import { emitSegments } from '../src/write/emit.js';
 import { PathWriter } from '../src/write/pathWriter.js';
 import { measureDeviation } from '../src/report/measure.js';
 import { measureDeviation as baselineMeasure } from './baseline/measure.js';
+import { contourPaths } from './bigfile.js';
 
 interface Pair { original: PathData; written: PathData; vertices: number; commands: number }
 
-/** Seeded smooth closed contours as L path text (formula of bench/bigfile.ts). */
-function contourTexts(count: number, vertices: number): string[] {
-  let seed = 12345;
-  const rand = (): number => {
-    seed = (seed * 1664525 + 1013904223) >>> 0;
-    return seed / 2 ** 32;
-  };
-  const out: string[] = [];
-  const cols = Math.ceil(Math.sqrt(count));
-  for (let k = 0; k < count; k++) {
-    const cx = 30 + 60 * (k % cols), cy = 30 + 60 * Math.floor(k / cols);
-    const a1 = rand() * 4, a2 = rand() * 2, p1 = rand() * 6, p2 = rand() * 6;
-    const pts: string[] = [];
-    for (let i = 0; i < vertices; i++) {
-      const t = (2 * Math.PI * i) / vertices;
-      const r = 20 + a1 * Math.sin(3 * t + p1) + a2 * Math.cos(7 * t + p2);
-      pts.push(`${(cx + r * Math.cos(t)).toFixed(4)} ${(cy + r * Math.sin(t)).toFixed(4)}`);
-    }
-    out.push(`M${pts.join(' L')} Z`);
-  }
-  return out;
-}
 
 /** Original and written path data per contour, written with 4 decimals (what 0.1 mm in mm units gets). */
 function makePairs(count: number, tol: number): Pair[] {
   const id: Matrix = identityMatrix();
   const mmToLocal = invert(new Float64Array(6), id)!;
   const pairs: Pair[] = [];
-  for (const text of contourTexts(count, 2500)) {
+  for (const text of contourPaths(count, 2500)) {
     const original = parsePathData(text);
     const contours = flattenPath(original, id, tol);
     const fitted = contours.map((c) => ({
