@@ -10,6 +10,7 @@
  * (XML_LIMITS.maxInputChars in src/svg/xmlSafety.ts, also 256 Mi).
  */
 import { SvgInputError } from './svg/errors.js';
+import { DEFAULT_OPTIONS } from './options.js';
 
 /** Size caps applied to a whole input. */
 export interface InputLimits {
@@ -17,9 +18,9 @@ export interface InputLimits {
   maxInputBytes: number;
 }
 
-/** Defaults: 256 MiB, the same figure as the XML reader's character cap. */
+/** Defaults: the library's `maxInputBytes` option (256 MiB), which also sets the XML reader's character cap. */
 export const DEFAULT_LIMITS: Readonly<InputLimits> = Object.freeze({
-  maxInputBytes: 256 * 2 ** 20,
+  maxInputBytes: DEFAULT_OPTIONS.maxInputBytes,
 });
 
 /** "256 MiB", "1.5 GiB", "900 bytes": for messages. */
