@@ -86,7 +86,7 @@ function seedNode(p: SearchParams, tx: number, ty: number): Node {
   };
 }
 
-function childNode(parent: Node, piece: Piece, piece2: Piece | null, b: number, p: SearchParams, next = b): Node {
+function childNode(parent: Node, piece: Piece, piece2: Piece | null, b: number, p: SearchParams): Node {
   const last = piece2 ?? piece;
   const pts = p.pts;
   const lo = Math.max(p.start, b - 1), hi = Math.min(p.last, b + 1);
@@ -94,7 +94,7 @@ function childNode(parent: Node, piece: Piece, piece2: Piece | null, b: number, 
   const el = len2(ex, ey);
   const err = el > 0 ? Math.abs(last.tx * ey - last.ty * ex) / el : 0;
   return {
-    a: next, qx: last.x1, qy: last.y1, bp: last.mp, bq: last.mq, br: last.mr, tx: last.tx, ty: last.ty,
+    a: b, qx: last.x1, qy: last.y1, bp: last.mp, bq: last.mq, br: last.mr, tx: last.tx, ty: last.ty,
     t0x: parent.t0x, t0y: parent.t0y, level: parent.level + (piece2 ? 2 : 1), parent, piece, piece2, children: null, reach: b, err,
   };
 }
