@@ -12,7 +12,10 @@
  * reach (a one-step look-ahead), and the best `width` are kept. The first level
  * that reaches the end gives the piece count.
  */
-import { makePiece, type Piece } from './piece.js';
+import {
+  LINE_PIECE, makePiece, NO_PIECE, PIECE_FIELDS, PIECE_TX, PIECE_TY, pieceFrom, STEP_ARGS, STEP_BP, STEP_BQ, STEP_BR, STEP_EX, STEP_EY, STEP_QX, STEP_QY, STEP_TOL,
+  tryPiece, type Piece,
+} from './piece.js';
 import { len2 } from './check.js';
 import { biarcClosure, TANGENT_EPS } from './closure.js';
 
@@ -33,7 +36,9 @@ interface Node {
   /** The piece from the parent to here, and a second one when a biarc closed the contour. */
   piece: Piece | null;
   piece2: Piece | null;
-  children: Node[] | null;
+  /** Its children short of the last vertex: records [c0, c1) of the child store, once expanded. */
+  c0: number;
+  c1: number;
   reach: number;
   err: number;
 }
@@ -78,40 +83,107 @@ export interface SearchParams {
   width: number;
 }
 
+/**
+ * The children of one level, as flat records rather than objects: most fitting
+ * knots are never kept, and making a node and a piece for each was most of the
+ * fitter's allocation. A record is a piece record (./piece.ts) followed by the
+ * knot, the piece kind, the tangent error at the knot and the parent's number.
+ */
+const C_B = PIECE_FIELDS, C_KIND = PIECE_FIELDS + 1, C_ERR = PIECE_FIELDS + 2, C_PARENT = PIECE_FIELDS + 3;
+const CHILD_FIELDS = PIECE_FIELDS + 4;
+
+class ChildStore {
+  rec = new Float64Array(CHILD_FIELDS * 256);
+  count = 0;
+
+  /** Offset of a new record (growing the store when full). */
+  reserve(): number {
+    if ((this.count + 1) * CHILD_FIELDS > this.rec.length) {
+      const bigger = new Float64Array(this.rec.length * 2);
+      bigger.set(this.rec);
+      this.rec = bigger;
+    }
+    return this.count * CHILD_FIELDS;
+  }
+}
+
+/** One store and one argument block per thread: the search never runs inside itself. */
+const store = new ChildStore();
+const stepArgs = new Float64Array(STEP_ARGS);
+
 function seedNode(p: SearchParams, tx: number, ty: number): Node {
   // Seed motor 1 + n (n: the tangent turned by −90°); its bivector part is (−tx, −ty, 0).
   return {
     a: p.start, qx: p.qx, qy: p.qy, bp: -tx, bq: -ty, br: 0, tx, ty, t0x: tx, t0y: ty,
-    level: 0, parent: null, piece: null, piece2: null, children: null, reach: p.start, err: 0,
+    level: 0, parent: null, piece: null, piece2: null, c0: 0, c1: 0, reach: p.start, err: 0,
   };
+}
+
+/** How far the last piece's tangent at knot b turns from the vertex path's direction there (sine). */
+function tangentError(pts: Float64Array, b: number, tx: number, ty: number, p: SearchParams): number {
+  const lo = Math.max(p.start, b - 1), hi = Math.min(p.last, b + 1);
+  const ex = pts[2 * hi] - pts[2 * lo], ey = pts[2 * hi + 1] - pts[2 * lo + 1];
+  const el = len2(ex, ey);
+  return el > 0 ? Math.abs(tx * ey - ty * ex) / el : 0;
 }
 
 function childNode(parent: Node, piece: Piece, piece2: Piece | null, b: number, p: SearchParams): Node {
   const last = piece2 ?? piece;
-  const pts = p.pts;
-  const lo = Math.max(p.start, b - 1), hi = Math.min(p.last, b + 1);
-  const ex = pts[2 * hi] - pts[2 * lo], ey = pts[2 * hi + 1] - pts[2 * lo + 1];
-  const el = len2(ex, ey);
-  const err = el > 0 ? Math.abs(last.tx * ey - last.ty * ex) / el : 0;
   return {
     a: b, qx: last.x1, qy: last.y1, bp: last.mp, bq: last.mq, br: last.mr, tx: last.tx, ty: last.ty,
-    t0x: parent.t0x, t0y: parent.t0y, level: parent.level + (piece2 ? 2 : 1), parent, piece, piece2, children: null, reach: b, err,
+    t0x: parent.t0x, t0y: parent.t0y, level: parent.level + (piece2 ? 2 : 1), parent, piece, piece2, c0: 0, c1: 0,
+    reach: b, err: tangentError(p.pts, b, last.tx, last.ty, p),
   };
 }
 
-function expand(n: Node, p: SearchParams, onTerminal: (t: Node) => void): void {
+/** The node of child record `o` of the store, under `parent`. */
+function storedNode(o: number, parent: Node, p: SearchParams): Node {
+  const rec = store.rec;
+  const b = rec[o + C_B];
+  const piece = pieceFrom(rec, o, rec[o + C_KIND], parent.a, b, parent.qx, parent.qy);
+  return {
+    a: b, qx: piece.x1, qy: piece.y1, bp: piece.mp, bq: piece.mq, br: piece.mr, tx: piece.tx, ty: piece.ty,
+    t0x: parent.t0x, t0y: parent.t0y, level: parent.level + 1, parent, piece, piece2: null, c0: 0, c1: 0,
+    reach: b, err: rec[o + C_ERR],
+  };
+}
+
+/**
+ * Try every knot after `n` as the end of its next piece; the ones that fit
+ * short of the last vertex become records of the store (tagged `parentNo`),
+ * one that reaches the last vertex is offered as a terminal.
+ */
+function expand(n: Node, parentNo: number, p: SearchParams, onTerminal: (t: Node) => void): void {
   const { pts, last, tol } = p;
-  const children: Node[] = [];
-  let fails = 0, lineAlive = true;
+  let fails = 0, lineAlive = true, reach = n.a;
+  let terminal: Node | null = null;
+  n.c0 = store.count;
+  const g = stepArgs;
+  g[STEP_BP] = n.bp;
+  g[STEP_BQ] = n.bq;
+  g[STEP_BR] = n.br;
+  g[STEP_QX] = n.qx;
+  g[STEP_QY] = n.qy;
+  g[STEP_TOL] = tol;
   for (let b = n.a + 1; b <= last; b++) {
     const ex = pts[2 * b], ey = pts[2 * b + 1];
-    let piece = makePiece(pts, n.a, b, n.bp, n.bq, n.br, n.qx, n.qy, ex, ey, tol);
-    if (piece && b === last && p.end.kind !== 'point') {
-      const dot = piece.tx * n.t0x + piece.ty * n.t0y, cr = piece.tx * n.t0y - piece.ty * n.t0x;
-      if (!(dot > 0 && Math.abs(cr) <= TANGENT_EPS)) piece = null;
+    const o = store.reserve();
+    const rec = store.rec;
+    g[STEP_EX] = ex;
+    g[STEP_EY] = ey;
+    let kind = tryPiece(rec, o, pts, n.a, b, g);
+    if (kind !== NO_PIECE && b === last && p.end.kind !== 'point') {
+      const tx = rec[o + PIECE_TX], ty = rec[o + PIECE_TY];
+      const dot = tx * n.t0x + ty * n.t0y, cr = tx * n.t0y - ty * n.t0x;
+      if (!(dot > 0 && Math.abs(cr) <= TANGENT_EPS)) kind = NO_PIECE;
     }
-    if (piece) {
-      children.push(childNode(n, piece, null, b, p));
+    if (kind !== NO_PIECE) {
+      reach = b;
+      if (b === last) {
+        if (p.end.kind !== 'line') terminal = childNode(n, pieceFrom(rec, o, kind, n.a, b, n.qx, n.qy), null, b, p);
+      } else {
+        pushChild(o, b, kind, parentNo, p);
+      }
       fails = 0;
     } else if (++fails > MAX_FAILS && !lineAlive) {
       break;
@@ -123,9 +195,16 @@ function expand(n: Node, p: SearchParams, onTerminal: (t: Node) => void): void {
       const off = len2(ex - fx, ey - fy);
       if (proj > 0 && off <= tol) {
         if (off > 0) {
-          const lp = makePiece(pts, n.a, b, n.bp, n.bq, n.br, n.qx, n.qy, fx, fy, tol);
-          if (lp && lp.kind === 'line') children.push(childNode(n, lp, null, b, p));
-          else if (!lp) lineAlive = false;
+          const lo = store.reserve();
+          g[STEP_EX] = fx;
+          g[STEP_EY] = fy;
+          const lk = tryPiece(store.rec, lo, pts, n.a, b, g);
+          if (lk === LINE_PIECE) {
+            reach = b;
+            pushChild(lo, b, lk, parentNo, p);
+          } else if (lk === NO_PIECE) {
+            lineAlive = false;
+          }
         }
       } else if (proj > 0) {
         lineAlive = false;
@@ -133,14 +212,22 @@ function expand(n: Node, p: SearchParams, onTerminal: (t: Node) => void): void {
     }
     if (fails > MAX_FAILS && !lineAlive) break;
   }
-  let reach = n.a;
-  for (const c of children) if (c.a > reach) reach = c.a;
-  n.children = children;
+  n.c1 = store.count;
   n.reach = reach;
   // Closing moves (a biarc, or a fillet onto the next straight run) reach at most
   // about two pieces ahead: only try them near the end.
   if (p.end.kind !== 'point' && last - n.a <= 3 * (reach - n.a) + 4) closingMoves(n, p, onTerminal);
-  if (p.end.kind !== 'line') for (const c of children) if (c.a === last) onTerminal(c);
+  if (terminal) onTerminal(terminal);
+}
+
+/** Keep the piece record at `o` (just reserved) as a child at knot b. */
+function pushChild(o: number, b: number, kind: number, parentNo: number, p: SearchParams): void {
+  const rec = store.rec;
+  rec[o + C_B] = b;
+  rec[o + C_KIND] = kind;
+  rec[o + C_ERR] = tangentError(p.pts, b, rec[o + PIECE_TX], rec[o + PIECE_TY], p);
+  rec[o + C_PARENT] = parentNo;
+  store.count++;
 }
 
 /** Terminal moves for a seam or a following straight run. */
@@ -199,39 +286,45 @@ function collect(end: Node): Piece[] {
 
 /** Search the fewest pieces from the start to the last vertex. */
 export function searchSpline(p: SearchParams): SearchResult {
-  const seeds = p.seeds;
   let best: Node | null = null;
   let farthest: Node | null = null;
   const onTerminal = (t: Node): void => {
     if (!best || t.level < best.level) best = t;
   };
-  let frontier: Node[] = seeds.map((t) => seedNode(p, t[0], t[1]));
-  for (const n of frontier) expand(n, p, onTerminal);
+  store.count = 0;
+  let frontier: Node[] = p.seeds.map((t) => seedNode(p, t[0], t[1]));
+  frontier.forEach((n, i) => expand(n, i, p, onTerminal));
+  let expanded = frontier;
+  const order: number[] = [];
   while (frontier.length > 0) {
     const level = frontier[0].level;
     if (best && (best as Node).level <= level + 1) break;
     // The children of this level, farthest knot first, best tangent first within a knot.
-    const all: Node[] = [];
+    order.length = 0;
+    let far = -1;
     for (const n of frontier) {
-      for (const c of n.children ?? []) {
-        if (c.a === p.last || c.level !== level + 1) continue;
-        if (!farthest || c.a > farthest.a) farthest = c;
-        all.push(c);
+      for (let i = n.c0; i < n.c1; i++) {
+        const o = i * CHILD_FIELDS;
+        if (far < 0 || store.rec[o + C_B] > store.rec[far + C_B]) far = o;
+        order.push(o);
       }
     }
-    // Unkept children must die young: drop the expanded lists of this level.
-    for (const n of frontier) n.children = null;
-    all.sort((u, v) => v.a - u.a || u.err - v.err);
+    const rec = store.rec;
+    if (far >= 0 && (!farthest || rec[far + C_B] > farthest.a)) farthest = storedNode(far, expanded[rec[far + C_PARENT]], p);
+    order.sort((u, v) => rec[v + C_B] - rec[u + C_B] || rec[u + C_ERR] - rec[v + C_ERR]);
     // At most PER_KNOT per knot vertex, and the first CANDIDATES × width of those.
     const limit = Math.ceil(CANDIDATES * p.width);
     const cand: Node[] = [];
-    for (let i = 0, run = 0; i < all.length && cand.length < limit; i++) {
-      run = i > 0 && all[i].a === all[i - 1].a ? run + 1 : 0;
-      if (run < PER_KNOT) cand.push(all[i]);
+    for (let i = 0, run = 0; i < order.length && cand.length < limit; i++) {
+      run = i > 0 && rec[order[i] + C_B] === rec[order[i - 1] + C_B] ? run + 1 : 0;
+      if (run < PER_KNOT) cand.push(storedNode(order[i], expanded[rec[order[i] + C_PARENT]], p));
     }
-    for (const c of cand) expand(c, p, onTerminal);
-    cand.sort((u, v) => v.reach - u.reach || v.a - u.a || u.err - v.err);
-    frontier = cand.slice(0, p.width);
+    // The unkept children are forgotten: the store is refilled by the candidates' children.
+    store.count = 0;
+    cand.forEach((c, i) => expand(c, i, p, onTerminal));
+    // Records name their parents by number in `cand`; rank a copy.
+    expanded = cand;
+    frontier = cand.slice().sort((u, v) => v.reach - u.reach || v.a - u.a || u.err - v.err).slice(0, p.width);
   }
   if (best) return { pieces: collect(best), complete: true };
   return { pieces: farthest ? collect(farthest) : [], complete: false };

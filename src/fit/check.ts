@@ -26,8 +26,30 @@ export function distPointSegment(px: number, py: number, ax: number, ay: number,
   return Math.sqrt(ex * ex + ey * ey);
 }
 
+/**
+ * Slots of an argument block: the hot calls pass their numbers in a
+ * Float64Array, since a number passed to a call that is not inlined is boxed
+ * on the heap, and the search makes millions of these calls.
+ */
+export const FIT_CX = 0, FIT_CY = 1, FIT_R = 2, FIT_SWEEP = 3, FIT_QX = 4, FIT_QY = 5, FIT_EX = 6, FIT_EY = 7, FIT_TOL = 8;
+/** Numbers in an argument block. */
+export const FIT_ARGS = 9;
+
+const block = new Float64Array(FIT_ARGS);
+
 /** Line piece (qx, qy)–(ex, ey) against vertices a..b of pts. */
 export function lineFits(pts: Float64Array, a: number, b: number, qx: number, qy: number, ex: number, ey: number, tol: number): boolean {
+  block[FIT_QX] = qx;
+  block[FIT_QY] = qy;
+  block[FIT_EX] = ex;
+  block[FIT_EY] = ey;
+  block[FIT_TOL] = tol;
+  return lineFitsIn(pts, a, b, block);
+}
+
+/** `lineFits` with its numbers in an argument block (FIT_QX … FIT_TOL). */
+export function lineFitsIn(pts: Float64Array, a: number, b: number, g: Float64Array): boolean {
+  const qx = g[FIT_QX], qy = g[FIT_QY], ex = g[FIT_EX], ey = g[FIT_EY], tol = g[FIT_TOL];
   for (let k = a; k <= b; k++) {
     if (distPointSegment(pts[2 * k], pts[2 * k + 1], qx, qy, ex, ey) > tol) return false;
   }
@@ -43,6 +65,22 @@ export function arcFits(
   cx: number, cy: number, r: number, sweep: number,
   qx: number, qy: number, ex: number, ey: number, tol: number,
 ): boolean {
+  block[FIT_CX] = cx;
+  block[FIT_CY] = cy;
+  block[FIT_R] = r;
+  block[FIT_SWEEP] = sweep;
+  block[FIT_QX] = qx;
+  block[FIT_QY] = qy;
+  block[FIT_EX] = ex;
+  block[FIT_EY] = ey;
+  block[FIT_TOL] = tol;
+  return arcFitsIn(pts, a, b, block);
+}
+
+/** `arcFits` with its numbers in an argument block (all FIT_ slots). */
+export function arcFitsIn(pts: Float64Array, a: number, b: number, g: Float64Array): boolean {
+  const cx = g[FIT_CX], cy = g[FIT_CY], r = g[FIT_R], sweep = g[FIT_SWEEP];
+  const qx = g[FIT_QX], qy = g[FIT_QY], ex = g[FIT_EX], ey = g[FIT_EY], tol = g[FIT_TOL];
   const ux = qx - cx, uy = qy - cy, vx = ex - cx, vy = ey - cy;
   const sgn = sweep < 0 ? -1 : 1;
   const large = Math.abs(sweep) > Math.PI;

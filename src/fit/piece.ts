@@ -4,7 +4,7 @@
  * vertices it stands for.
  */
 import { arcStepScalar } from '../pga/arcStep.js';
-import { arcFits, len2, lineFits } from './check.js';
+import { arcFitsIn, FIT_ARGS, FIT_CX, FIT_CY, FIT_EX, FIT_EY, FIT_QX, FIT_QY, FIT_R, FIT_SWEEP, FIT_TOL, len2, lineFitsIn } from './check.js';
 
 
 /** A piece between two knots, with the motor that carries its start to its end. */
@@ -30,12 +30,93 @@ export interface Piece {
 /** An arc whose sagitta is below this fraction of the tolerance is a line. */
 const LINE_SAGITTA = 1e-6;
 
-/** The step's motor before it is known to fit; copied out only for pieces that pass. */
-const scratch = new Float64Array(4);
+/** What `tryPiece` found: no piece, a line or an arc. */
+export const NO_PIECE = 0, LINE_PIECE = 1, ARC_PIECE = 2;
+
+/**
+ * Layout of the record `tryPiece` writes: the normalised motor (s, e01, e02,
+ * e12), the end point and the unit tangent there.
+ */
+export const PIECE_MS = 0, PIECE_MP = 1, PIECE_MQ = 2, PIECE_MR = 3, PIECE_X1 = 4, PIECE_Y1 = 5, PIECE_TX = 6, PIECE_TY = 7;
+/** Numbers in one piece record. */
+export const PIECE_FIELDS = 8;
+
+/**
+ * Slots of the argument block of `tryPiece` (numbers passed in a Float64Array,
+ * which boxes none; see ./check.ts): the previous motor's bivector part, the
+ * start and end points and the tolerance.
+ */
+export const STEP_BP = 0, STEP_BQ = 1, STEP_BR = 2, STEP_QX = 3, STEP_QY = 4, STEP_EX = 5, STEP_EY = 6, STEP_TOL = 7;
+/** Numbers in the argument block of `tryPiece`. */
+export const STEP_ARGS = 8;
+
+/** The check's argument block (one per thread; the checks never run inside each other). */
+const fit = new Float64Array(FIT_ARGS);
 
 /**
  * Build the piece from (qx, qy) to (ex, ey) continuing the motor whose bivector
- * part is (bp, bq, br), and check it against vertices a..b. Null if degenerate or
+ * part is (bp, bq, br), all given in the block `g` (STEP_ slots), and check it
+ * against vertices a..b. Writes the piece's record at out[o..o + PIECE_FIELDS)
+ * when it fits and allocates nothing (the search calls it for every candidate
+ * knot).
+ * @returns NO_PIECE if degenerate or outside the tolerance, else LINE_PIECE or ARC_PIECE
+ */
+export function tryPiece(out: Float64Array, o: number, pts: Float64Array, a: number, b: number, g: Float64Array): number {
+  const qx = g[STEP_QX], qy = g[STEP_QY], ex = g[STEP_EX], ey = g[STEP_EY], tol = g[STEP_TOL];
+  const dx = ex - qx, dy = ey - qy;
+  const chord = Math.sqrt(dx * dx + dy * dy);
+  if (!(chord > 0)) return NO_PIECE;
+  if (!arcStepScalar(out, o, g[STEP_BP], g[STEP_BQ], g[STEP_BR], qx, qy, ex, ey)) return NO_PIECE;
+  const s = out[o + PIECE_MS], r = out[o + PIECE_MR];
+  const halfAngle = Math.abs(Math.atan2(r, s)); // |φ|: half the arc's central angle
+  const sagitta = 0.5 * chord * Math.tan(0.5 * halfAngle);
+  out[o + PIECE_X1] = ex;
+  out[o + PIECE_Y1] = ey;
+  fit[FIT_QX] = qx;
+  fit[FIT_QY] = qy;
+  fit[FIT_EX] = ex;
+  fit[FIT_EY] = ey;
+  fit[FIT_TOL] = tol;
+  if (sagitta <= LINE_SAGITTA * tol) {
+    // The two lines of the step were parallel up to rounding: a translation.
+    if (!lineFitsIn(pts, a, b, fit)) return NO_PIECE;
+    out[o + PIECE_MS] = 1;
+    out[o + PIECE_MP] = -0.5 * dx;
+    out[o + PIECE_MQ] = -0.5 * dy;
+    out[o + PIECE_MR] = 0;
+    out[o + PIECE_TX] = dx / chord;
+    out[o + PIECE_TY] = dy / chord;
+    return LINE_PIECE;
+  }
+  const cx = -out[o + PIECE_MQ] / r, cy = out[o + PIECE_MP] / r;
+  const rad = len2(qx - cx, qy - cy);
+  const sweep = -2 * Math.atan2(r, s);
+  fit[FIT_CX] = cx;
+  fit[FIT_CY] = cy;
+  fit[FIT_R] = rad;
+  fit[FIT_SWEEP] = sweep;
+  if (!arcFitsIn(pts, a, b, fit)) return NO_PIECE;
+  // Tangent at the end: the radius vector turned by ±90° in the sweep direction.
+  const sg = sweep > 0 ? 1 : -1;
+  out[o + PIECE_TX] = (-sg * (ey - cy)) / rad;
+  out[o + PIECE_TY] = (sg * (ex - cx)) / rad;
+  return ARC_PIECE;
+}
+
+/** The piece of a record `tryPiece` wrote (kind LINE_PIECE or ARC_PIECE), starting at (x0, y0). */
+export function pieceFrom(rec: Float64Array, o: number, kind: number, a: number, b: number, x0: number, y0: number): Piece {
+  return {
+    kind: kind === LINE_PIECE ? 'line' : 'arc',
+    ms: rec[o + PIECE_MS], mp: rec[o + PIECE_MP], mq: rec[o + PIECE_MQ], mr: rec[o + PIECE_MR],
+    x0, y0, x1: rec[o + PIECE_X1], y1: rec[o + PIECE_Y1], a, b, tx: rec[o + PIECE_TX], ty: rec[o + PIECE_TY],
+  };
+}
+
+const scratch = new Float64Array(PIECE_FIELDS);
+const args = new Float64Array(STEP_ARGS);
+
+/**
+ * `tryPiece` returning the piece as an object, or null if degenerate or
  * outside the tolerance.
  */
 export function makePiece(
@@ -43,27 +124,17 @@ export function makePiece(
   bp: number, bq: number, br: number,
   qx: number, qy: number, ex: number, ey: number, tol: number,
 ): Piece | null {
-  const dx = ex - qx, dy = ey - qy;
-  const chord = Math.sqrt(dx * dx + dy * dy);
-  if (!(chord > 0)) return null;
-  const m = scratch;
-  if (!arcStepScalar(m, 0, bp, bq, br, qx, qy, ex, ey)) return null;
-  const s = m[0], r = m[3];
-  const halfAngle = Math.abs(Math.atan2(r, s)); // |φ|: half the arc's central angle
-  const sagitta = 0.5 * chord * Math.tan(0.5 * halfAngle);
-  if (sagitta <= LINE_SAGITTA * tol) {
-    // The two lines of the step were parallel up to rounding: a translation.
-    if (!lineFits(pts, a, b, qx, qy, ex, ey, tol)) return null;
-    return { kind: 'line', ms: 1, mp: -0.5 * dx, mq: -0.5 * dy, mr: 0, x0: qx, y0: qy, x1: ex, y1: ey, a, b, tx: dx / chord, ty: dy / chord };
-  }
-  const cx = -m[2] / r, cy = m[1] / r;
-  const rad = len2(qx - cx, qy - cy);
-  const sweep = -2 * Math.atan2(r, s);
-  if (!arcFits(pts, a, b, cx, cy, rad, sweep, qx, qy, ex, ey, tol)) return null;
-  // Tangent at the end: the radius vector turned by ±90° in the sweep direction.
-  const sg = sweep > 0 ? 1 : -1;
-  const tx = (-sg * (ey - cy)) / rad, ty = (sg * (ex - cx)) / rad;
-  return { kind: 'arc', ms: s, mp: m[1], mq: m[2], mr: r, x0: qx, y0: qy, x1: ex, y1: ey, a, b, tx, ty };
+  const g = args;
+  g[STEP_BP] = bp;
+  g[STEP_BQ] = bq;
+  g[STEP_BR] = br;
+  g[STEP_QX] = qx;
+  g[STEP_QY] = qy;
+  g[STEP_EX] = ex;
+  g[STEP_EY] = ey;
+  g[STEP_TOL] = tol;
+  const kind = tryPiece(scratch, 0, pts, a, b, g);
+  return kind === NO_PIECE ? null : pieceFrom(scratch, 0, kind, a, b, qx, qy);
 }
 
 /** Unit tangent at the start of a piece (for tests and the closure). */
