@@ -12,7 +12,6 @@ import { CommanderError } from 'commander';
 import { OptionError, resolveOptions, type Options } from '../options.js';
 import { refitSvgParallel } from '../refitParallel.js';
 import { formatTable } from '../report/table.js';
-import { writePreview } from './previewCommand.js';
 import { measureMain } from './measureMain.js';
 import { SvgInputError } from '../svg/errors.js';
 import { buildProgram, parsedArgs, type CliFlags, type ParsedArgs } from './args.js';
@@ -269,7 +268,11 @@ async function refitFile(input: string, flags: CliFlags, options: Partial<Option
     asUsageError(e, 'write', 'standard output');
   }
   const err = (line: string): void => void io.stderr.write(`${line}\n`);
-  if (flags.preview !== undefined) await writePreview(text, result.text, flags.preview, { report: result.report });
+  if (flags.preview !== undefined) {
+    // Loaded only when asked for: the image library's native code takes longer to load than a small file takes to refit.
+    const { writePreview } = await import('./previewCommand.js');
+    await writePreview(text, result.text, flags.preview, { report: result.report });
+  }
   if (!flags.quiet) err(summaryLine(name, result.report, paint));
   if (flags.table && !flags.quiet) err(formatTable(result.report, { color: paint !== PLAIN, width: 100 }).trimEnd());
   for (const line of problemLines(name, result.report, paint)) err(line);
