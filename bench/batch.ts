@@ -2,9 +2,16 @@
  * Batch benchmark: 200 generated files (170 small icons, 30 large traced
  * drawings; our own scenario, seeded) in a temporary directory, refitted at
  * 0.05 mm by the compiled batch (dist/) with 1 job and with one job per core,
- * against the single-file path (main() once per file) in the same process.
+ * against the single-file path: main() once per file in the same (warm)
+ * process, and the command once per file from the shell (a fresh process each,
+ * on the 20 files of set0, 17 icons and 3 drawings like the whole).
  * Each figure is the median of 3 runs after a warm-up; the checksum (bytes
- * written) must be equal across all three ways, so none skipped work.
+ * written) must be equal across the in-process ways, so none skipped work.
+ *
+ * It also times one fresh worker thread's first and second pass over the
+ * files: the difference is what each thread pays to bring its code up to speed
+ * (the JIT compiling on a second core, and running slow code meanwhile), which
+ * every job of a batch pays once.
  *
  * Run alone: `npx tsx bench/batch.ts` (builds dist/ first when it is missing).
  */
@@ -66,13 +73,13 @@ function traced(rand: () => number, contours = 16, vertices = 2000): string {
 }
 
 /** Write the 200 files (in 10 subdirectories) and return their total size in bytes. */
-export function generateBatch(dir: string, icons = 170, drawings = 30, seed = 2024): number {
+export function generateBatch(dir: string, icons = 170, drawings = 30, seed = 2024, contours = 16): number {
   const rand = rng(seed);
   let bytes = 0;
   for (let i = 0; i < icons + drawings; i++) {
     const sub = join(dir, `set${i % 10}`);
     mkdirSync(sub, { recursive: true });
-    const text = i < icons ? icon(rand) : traced(rand);
+    const text = i < icons ? icon(rand) : traced(rand, contours);
     writeFileSync(join(sub, i < icons ? `icon${i}.svg` : `drawing${i}.svg`), text);
     bytes += Buffer.byteLength(text);
   }
@@ -116,6 +123,39 @@ async function usableCores(n: number): Promise<number> {
   const t1 = median([await once(1), await once(1), await once(1)]);
   const tn = median([await once(n), await once(n), await once(n)]);
   return (n * t1) / tn;
+}
+
+/** One fresh worker thread's first and second pass over `files`, s (the first includes bringing its code up to speed). */
+async function warmUp(files: readonly string[]): Promise<[number, number]> {
+  const url = new URL('../dist/src/cli/worker.js', import.meta.url);
+  const w = new Worker(url, { workerData: { arcsplineWorker: true, options: { tolerance: Number.parseFloat(TOLERANCE) } }, resourceLimits: { maxOldGenerationSizeMb: 1024 } });
+  const pass = async (): Promise<number> => {
+    const t0 = performance.now();
+    for (let id = 0; id < files.length; id++) {
+      await new Promise<void>((resolve) => {
+        w.once('message', () => resolve());
+        w.postMessage({ id, path: files[id], wantOriginal: false });
+      });
+    }
+    return (performance.now() - t0) / 1000;
+  };
+  try {
+    return [await pass(), await pass()];
+  } finally {
+    await w.terminate();
+  }
+}
+
+/** The command once per file from the shell, s (a fresh Node process each). */
+function perProcess(files: readonly string[], input: string, out: string): number {
+  const bin = join(ROOT, 'bin', 'arcspline.js');
+  const t0 = performance.now();
+  for (const f of files) {
+    const o = join(out, f.slice(input.length + 1));
+    mkdirSync(join(o, '..'), { recursive: true });
+    execFileSync(process.execPath, [bin, f, '-o', o, '--tolerance', TOLERANCE, '-q'], { stdio: 'ignore', env: { ...process.env, CI: 'true' } });
+  }
+  return (performance.now() - t0) / 1000;
 }
 
 const median = (xs: number[]): number => xs.slice().sort((a, b) => a - b)[xs.length >> 1];
@@ -170,6 +210,9 @@ export async function benchBatch(): Promise<string> {
     const jn = await measure(batch(cores));
     if (s.bytes !== j1.bytes || s.bytes !== jn.bytes) throw new Error(`checksum differs: ${s.bytes} / ${j1.bytes} / ${jn.bytes} bytes`);
     const usable = await usableCores(cores);
+    const [first, second] = await warmUp(files);
+    const set0 = files.filter((f) => f.slice(input.length + 1).startsWith('set0'));
+    const shell = perProcess(set0, input, join(work, 'shell'));
     const n = files.length;
     const rate = (t: number): string => `${(n / t).toFixed(1)} files/s`;
     const perCore = (t: number, jobs: number): number => n / t / jobs;
@@ -184,6 +227,10 @@ export async function benchBatch(): Promise<string> {
       `  speed-up --jobs ${cores} over --jobs 1: ${(j1.s / jn.s).toFixed(2)}x; over the single-file path: ${(s.s / jn.s).toFixed(2)}x`,
       `  throughput per core: --jobs ${cores} ${perCore(jn.s, cores).toFixed(1)}, --jobs 1 ${perCore(j1.s, 1).toFixed(1)}, single-file ${perCore(s.s, 1).toFixed(1)} files/s ` +
         `(ratio ${(perCore(jn.s, cores) / perCore(s.s, 1)).toFixed(2)})`,
+      `  single-file path from the shell (one process per file, ${set0.length} of the files): ${(set0.length / shell).toFixed(1)} files/s; ` +
+        `throughput per core of --jobs ${cores} against it: ${(perCore(jn.s, cores) / (set0.length / shell)).toFixed(1)}x`,
+      `  a fresh worker thread: first pass ${first.toFixed(2)} s, second pass ${second.toFixed(2)} s; ` +
+        `each job pays the difference, ${(first - second).toFixed(2)} s, once (bringing its code up to speed)`,
       `  checksum: ${s.bytes} bytes written by each`,
     ].join('\n');
   } finally {
