@@ -114,12 +114,17 @@ function parseCount(text: string, what: string, min: number): number {
   return v;
 }
 
+/** `--max-input <MB>` as bytes (also used by `arcspline measure`). */
+export function parseMaxInput(text: string): number {
+  return validated('maxInputBytes', Math.round(parseNumber(text, 'MB') * 2 ** 20));
+}
+
 const PARSERS: Readonly<Partial<Record<keyof Options, (text: string) => unknown>>> = Object.freeze({
   tolerance: parseTolerance,
   cornerAngle: (t: string) => validated('cornerAngle', parseNumber(t, 'degrees')),
   assumedMmPerUnit: parseUnitlessSize,
   digits: (t: string) => validated('digits', parseNumber(t, 'decimal places')),
-  maxInputBytes: (t: string) => validated('maxInputBytes', Math.round(parseNumber(t, 'MB') * 2 ** 20)),
+  maxInputBytes: parseMaxInput,
 });
 
 /** A default as `--help` shows it, from DEFAULT_OPTIONS; an empty string when the meaning says it already. */

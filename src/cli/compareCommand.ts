@@ -35,12 +35,14 @@ export interface CompareCommandOptions {
   width?: number;
   /** mm per user unit for files without a physical size; default CSS px. */
   assumedMmPerUnit?: number;
+  /** Largest file read, bytes (refused before reading); default the library's maxInputBytes. */
+  maxInputBytes?: number;
 }
 
 /** Read one file ("-" = standard input) as SVG text; UsageError for what the user can fix. */
-export async function readSvgText(path: string, io: CommandIo): Promise<string> {
+export async function readSvgText(path: string, io: CommandIo, maxInputBytes = DEFAULT_OPTIONS.maxInputBytes): Promise<string> {
   if (path === '-' && io.stdin === undefined) throw new UsageError('standard input is not available here; name a file');
-  const bytes = await readInputBytes(path === '-' ? null : path, io.stdin as Readable, path === '-' ? 'standard input' : path);
+  const bytes = await readInputBytes(path === '-' ? null : path, io.stdin as Readable, path === '-' ? 'standard input' : path, maxInputBytes);
   return decodeSvgBytes(bytes, path === '-' ? 'standard input' : path);
 }
 
@@ -62,8 +64,8 @@ export async function runCompare(fileA: string, fileB: string, opts: CompareComm
   if (fileA === '-' && fileB === '-') return fail(EXIT_USAGE, 'only one of the two files can be standard input');
   let a: string, b: string;
   try {
-    a = await readSvgText(fileA, io);
-    b = await readSvgText(fileB, io);
+    a = await readSvgText(fileA, io, opts.maxInputBytes);
+    b = await readSvgText(fileB, io, opts.maxInputBytes);
   } catch (e) {
     if (e instanceof UsageError) return fail(EXIT_USAGE, e.message);
     return fail(EXIT_INTERNAL, `internal error: ${(e as Error).message}`);

@@ -5,6 +5,7 @@
  * error leaves no new file behind.
  */
 import { decodeSvgBytes as decodeText, detectSvgEncoding } from '../svg/decode.js';
+import { DEFAULT_OPTIONS } from '../options.js';
 import { SvgInputError } from '../svg/errors.js';
 import { randomBytes } from 'node:crypto';
 import { constants as fsc } from 'node:fs';
@@ -12,9 +13,6 @@ import { lstat, open, realpath, rename, stat, unlink } from 'node:fs/promises';
 import { basename, dirname, join } from 'node:path';
 import type { Readable, Writable } from 'node:stream';
 import { UsageError } from './exitCodes.js';
-
-/** Largest input accepted before decoding, bytes (the reader's own cap is 256 Mi characters). */
-export const MAX_INPUT_BYTES = 1024 * 1024 * 1024;
 
 function tooLarge(name: string, bytes: number, limit: number): never {
   throw new UsageError(`${name}: ${(bytes / 2 ** 20).toFixed(1)} MB is more than the input limit of ${(limit / 2 ** 20).toFixed(1)} MB; raise it with --max-input <MB> if the machine has the memory (plan for about 20x the file size)`);
@@ -52,7 +50,7 @@ export function asUsageError(e: unknown, verb: string, path: string): never {
 }
 
 /** Read a whole file (or, for `null`, the stream) as bytes, refusing more than `limit` bytes (before reading a file). */
-export async function readInputBytes(path: string | null, stdin: Readable, name: string, limit = MAX_INPUT_BYTES): Promise<Uint8Array> {
+export async function readInputBytes(path: string | null, stdin: Readable, name: string, limit = DEFAULT_OPTIONS.maxInputBytes): Promise<Uint8Array> {
   if (path === null) {
     const parts: Buffer[] = [];
     let n = 0;

@@ -8,6 +8,7 @@ import { Command, CommanderError, InvalidArgumentError } from 'commander';
 import { DEFAULT_OPTIONS, OptionError, parseToleranceText } from '../options.js';
 import { EXIT_USAGE } from './exitCodes.js';
 import { runCompare } from './compareCommand.js';
+import { parseMaxInput } from './args.js';
 import { choosePaint, PLAIN } from './summary.js';
 import type { Io } from './main.js';
 
@@ -29,6 +30,7 @@ export async function measureMain(argv: string[], io: Io): Promise<number> {
     .option('-t, --tolerance <length>', `the bound to judge against; mm, cm, in, pt, pc, px or Q (default: ${DEFAULT_OPTIONS.tolerance} mm)`, length)
     .option('--unitless-size <length>', 'size of one user unit when a file states no physical size (default: 1 CSS px = 0.2645833 mm)', length)
     .option('--json', 'print the figures as JSON instead of a table')
+    .option('--max-input <MB>', `refuse a file larger than this before reading it (default: ${DEFAULT_OPTIONS.maxInputBytes / 2 ** 20} MB)`, parseMaxInput)
     .addHelpText('after', '\nExit codes: 0 within the tolerance, 1 not within it, 2 usage or input error, 3 internal error.\n')
     .configureOutput({
       writeOut: (t) => void io.stdout.write(t),
@@ -43,12 +45,13 @@ export async function measureMain(argv: string[], io: Io): Promise<number> {
     throw e;
   }
   const [a, b] = program.args;
-  const o = program.opts<{ tolerance?: number; unitlessSize?: number; json?: boolean }>();
+  const o = program.opts<{ tolerance?: number; unitlessSize?: number; json?: boolean; maxInput?: number }>();
   const color = choosePaint(io.stderrIsTTY ?? (io.stdout as { isTTY?: boolean }).isTTY === true, io.env ?? process.env) !== PLAIN;
   return runCompare(a, b, {
     tolerance: o.tolerance ?? DEFAULT_OPTIONS.tolerance,
     assumedMmPerUnit: o.unitlessSize,
     json: o.json === true,
+    maxInputBytes: o.maxInput,
     color,
   }, { stdout: io.stdout, stderr: io.stderr, stdin: io.stdin });
 }

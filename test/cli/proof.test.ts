@@ -74,5 +74,10 @@ describe('the proof on the command line: table, preview, measure', () => {
     expect(existsSync(join(dir.dir, 'out.svg'))).toBe(false);
     const { refitSvg } = await import('../../src/refit.js');
     expect(() => refitSvg(readFileSync(SAMPLE, 'utf8'), { maxInputBytes: 1000 })).toThrow(/input too large/);
+    // measure reads with the same limit and the same flag.
+    const m = await run(['measure', big, SAMPLE, '--max-input', '0.01']);
+    expect(m.code).toBe(2);
+    expect(m.stderr).toMatch(/big\.svg: 0\.0 MB is more than the input limit of 0\.0 MB; raise it with --max-input/);
+    expect((await run(['measure', big, SAMPLE, '--max-input', '1'])).code).toBe(0);
   });
 });
