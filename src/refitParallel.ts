@@ -16,8 +16,22 @@ import { resolveOptions, type Options } from './options.js';
 import { readSvg, type GeometryElement } from './svg/document.js';
 import { assemble, emptyTimes, refitOne, refitSvg, type ElementOutcome, type RefitResult, type StageTimes } from './refit.js';
 
-/** Below this much text a second thread costs more than it saves. */
-export const PARALLEL_MIN_CHARS = 1 << 20;
+/**
+ * A fresh worker thread first spends about as long bringing its code up to
+ * speed as one warm thread takes to refit this much traced-drawing text
+ * (measured from the shell on 2 cores: 1.1 to 19 MB files took as long or
+ * longer with --jobs 2 than with --jobs 1, 39 MB took 15 % less).
+ */
+export const WARM_UP_CHARS = 16 * 2 ** 20;
+
+/**
+ * Smallest document worth sharing over `threads` threads: sharing saves
+ * (1 − 1/threads) of the work and costs a worker's warm-up, so it pays above
+ * WARM_UP_CHARS · threads / (threads − 1) characters (32 Mi for 2 threads).
+ */
+export function parallelMinChars(threads: number): number {
+  return threads < 2 ? Infinity : (WARM_UP_CHARS * threads) / (threads - 1);
+}
 
 /** The message a worker gets, and what it answers. */
 export interface ElementJob {
@@ -59,13 +73,15 @@ function runWorker(url: URL, job: ElementJob): Promise<ElementJobResult> {
 /**
  * Refit an SVG document using up to `jobs` threads. Same result as `refitSvg`;
  * stage times are summed over the threads.
+ * @param minChars documents shorter than this run on this thread alone (default: where threads pay, parallelMinChars)
  */
 export async function refitSvgParallel(
   text: string, partial: Partial<Options> = {}, file: string | null = null, jobs = availableParallelism(),
+  minChars = parallelMinChars(jobs),
 ): Promise<RefitResult> {
   const url = workerUrl();
   // Small documents, one thread, or no compiled worker: exactly the one-thread call.
-  if (!url || jobs < 2 || text.length < PARALLEL_MIN_CHARS) return refitSvg(text, partial, file);
+  if (!url || jobs < 2 || text.length < minChars) return refitSvg(text, partial, file);
   const t0 = performance.now();
   const opts = resolveOptions(partial);
   const times = emptyTimes();

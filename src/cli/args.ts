@@ -154,7 +154,7 @@ export function buildProgram(out: ProgramOutput, afterHelp: string): Command {
     .option('-o, --output <file>', 'write the refitted SVG here; - is standard output; for a batch, the output directory (see "Output" and "Batches" below)')
     .option('--report <file>', 'write the deviation report as JSON here; - is standard output (one file only)')
     .option('--report-lines <file>', 'write one JSON line per file as it finishes (the report of --report, or an error); - is standard output')
-    .option('-j, --jobs <n>', `files refitted at once in a batch (default: one per core, here ${availableParallelism()})`, (t: string) => parseCount(t, 'jobs', 1))
+    .option('-j, --jobs <n>', `files refitted at once in a batch, or threads for one very large file (default: one per core, here ${availableParallelism()})`, (t: string) => parseCount(t, 'jobs', 1))
     .option('--worker-memory <MB>', `heap limit of each batch worker (default: ${DEFAULT_WORKER_MEMORY_MB} MB; larger files are refused before reading)`, (t: string) => parseCount(t, 'MB', 64));
   for (const key of Object.keys(OPTION_FLAGS) as (keyof Options)[]) {
     const opt = new Option(OPTION_FLAGS[key], optionHelp(key));

@@ -15,14 +15,15 @@ describe('refitting on several threads', () => {
   it('gives exactly the text and report of the one-thread run (worker threads really used)', async () => {
     const built = `${root}/dist/src/refitParallel.js`;
     expect(existsSync(`${root}/dist/src/refitWorker.js`)).toBe(true);
-    const { refitSvgParallel, PARALLEL_MIN_CHARS } = (await import(built)) as typeof import('../../src/refitParallel.js');
+    const { refitSvgParallel, parallelMinChars } = (await import(built)) as typeof import('../../src/refitParallel.js');
     const { refitSvg: builtRefit } = (await import(`${root}/dist/src/refit.js`)) as typeof import('../../src/refit.js');
-    const text = bigDrawing(40, 2500); // about 1.9 MB: above the threshold for threads
-    expect(text.length).toBeGreaterThan(PARALLEL_MIN_CHARS);
+    const text = bigDrawing(40, 2500); // about 1.9 MB: threads are forced below (by default they start at 32 MiB)
+    expect(text.length).toBeLessThan(parallelMinChars(2));
+    expect(parallelMinChars(1)).toBe(Infinity);
     const one = builtRefit(text, { tolerance: 0.05 });
     // And the sources agree with the build on the figures that matter.
     expect(refitSvg(text, { tolerance: 0.05 }).text).toBe(one.text);
-    const two = await refitSvgParallel(text, { tolerance: 0.05 }, null, 2);
+    const two = await refitSvgParallel(text, { tolerance: 0.05 }, null, 2, 0);
     expect(two.text).toBe(one.text);
     const strip = (r: typeof one.report): unknown => ({ ...r, timeMs: 0 });
     expect(strip(two.report)).toEqual(strip(one.report));
