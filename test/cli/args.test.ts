@@ -22,7 +22,7 @@ describe('flags onto the options object', () => {
 
   it('maps every flag onto its option, with units converted to mm', () => {
     const a = parse(['in.svg', '-t', '0.1in', '--corner-angle', '12.5', '--bake-transforms', '--shapes-as-paths', '--unitless-size', '1pt', '--digits', '0']);
-    const want: Options = {
+    const want: Partial<Options> = {
       tolerance: 2.54, cornerAngle: 12.5, bakeTransforms: true, shapesAsPaths: true,
       assumedMmPerUnit: 25.4 / 72, // CSS Values 3 §5.2: 1pt = 1/72 in
       digits: 0, // 0 must pass (options use ??, not ||)

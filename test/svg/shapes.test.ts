@@ -47,7 +47,8 @@ describe('rect (S2 §10.2, REFERENCES.md §3)', () => {
   });
   it('R6 width=-1, width=0 or missing → not rendered', () => {
     // W3C SVG 2 §10.2 (R6)
-    for (const a of [{ width: '-1', height: '5' }, { width: '0', height: '5' }, { height: '5' }, { width: '5', height: '0' }]) {
+    const cases: Record<string, string>[] = [{ width: '-1', height: '5' }, { width: '0', height: '5' }, { height: '5' }, { width: '5', height: '0' }];
+    for (const a of cases) {
       const r = shape('rect', a);
       expect(r.path, JSON.stringify(a)).toBeNull();
       expect(r.error).toMatch(/not rendered/);
@@ -69,7 +70,8 @@ describe('circle and ellipse (S2 §10.3–10.4)', () => {
   });
   it('C2 r=0, r=-1 or missing → not rendered', () => {
     // W3C SVG 2 §10.3 (C2)
-    for (const a of [{ r: '0' }, { r: '-1' }, {}, { r: 'big' }]) expect(shape('circle', a).path, JSON.stringify(a)).toBeNull();
+    const cases: Record<string, string>[] = [{ r: '0' }, { r: '-1' }, {}, { r: 'big' }];
+    for (const a of cases) expect(shape('circle', a).path, JSON.stringify(a)).toBeNull();
   });
   it('U1 r="1%" in a 4000×2000 viewport → r = 31.6228', () => {
     // W3C SVG 2 §8.9 #Units example (U1)
