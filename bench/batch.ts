@@ -13,7 +13,10 @@
  * (the JIT compiling on a second core, and running slow code meanwhile), which
  * every job of a batch pays once.
  *
- * Run alone: `npx tsx bench/batch.ts` (builds dist/ first when it is missing).
+ * Run alone: `npx tsx bench/batch.ts` (builds dist/ first when it is missing);
+ * `BATCH_CONTOURS=64 npx tsx bench/batch.ts` makes each drawing 4× larger
+ * (64 MB in all), to see how the speed-up grows as the work outweighs the
+ * per-thread warm-up.
  */
 import { execFileSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readdirSync, rmSync, statSync, writeFileSync, mkdirSync } from 'node:fs';
@@ -171,7 +174,8 @@ export async function benchBatch(): Promise<string> {
   const work = mkdtempSync(join(tmpdir(), 'arcspline-bench-'));
   try {
     const input = join(work, 'in');
-    const bytesIn = generateBatch(input);
+    const contours = Number(process.env.BATCH_CONTOURS ?? 16);
+    const bytesIn = generateBatch(input, 170, 30, 2024, contours);
     const files = filesBelow(input);
     const io = (): object => ({ stdin: process.stdin, stdout: nullStream(), stderr: nullStream(), isTTY: false, stderrIsTTY: false, env: { CI: 'true' } });
     let run = 0;
@@ -218,7 +222,7 @@ export async function benchBatch(): Promise<string> {
     const perCore = (t: number, jobs: number): number => n / t / jobs;
     const cpu = cpus()[0]?.model.trim() ?? 'unknown CPU';
     return [
-      `batch: ${n} files (170 icons, 30 traced drawings; ${(bytesIn / 1e6).toFixed(1)} MB), tolerance ${TOLERANCE}, median of 3`,
+      `batch: ${n} files (170 icons, 30 traced drawings of ${contours} contours; ${(bytesIn / 1e6).toFixed(1)} MB), tolerance ${TOLERANCE}, median of 3`,
       `  machine: ${cores} cores (${cpu}), Node ${process.version}; load average ${loadavg()[0].toFixed(1)}; ` +
         `a busy loop in ${cores} threads ran ${usable.toFixed(2)}x as fast as in 1 (the parallelism free at the time)`,
       `  single-file path (main() per file, same process)  ${s.s.toFixed(2)} s  ${rate(s.s)}`,
