@@ -6,7 +6,9 @@
  * (and, for an arc, inside its angular sector or within `tol` of an end), no
  * edge between them dips further than `tol` inside the circle, and the arc is no
  * longer than the vertex path allows (so the path runs along all of it rather
- * than sitting at its ends). The vertex path then runs continuously through the
+ * than sitting at its ends), and, on a small circle or for more than half a
+ * turn, the path turns about the centre the way the arc does (so it cannot
+ * take the short way round while the arc goes the long way). The vertex path then runs continuously through the
  * sector from one end to the other, so every point of the piece is within `tol`
  * of the path too (two-sided).
  */
@@ -119,5 +121,24 @@ export function arcFitsIn(pts: Float64Array, a: number, b: number, g: Float64Arr
   // its length, shortened to the inner edge of the band, cannot exceed the path's by more than the ends' slack.
   // The path is counted from the arc's start to the first vertex and from the last vertex to its end too.
   path += len2(pts[2 * a] - qx, pts[2 * a + 1] - qy) + len2(ex - prevX, ey - prevY);
-  return r * Math.abs(sweep) * (1 - (2 * tol) / r) <= path + 2 * tol;
+  if (!(r * Math.abs(sweep) * (1 - (2 * tol) / r) <= path + 2 * tol)) return false;
+  // On a small circle a chord can stay inside the band and still cut across the part of the circle the
+  // arc leaves out: for an arc of more than half a turn when r ≤ 7.5 tol (a chord over the left-out angle
+  // 2π − |sweep| comes within r·cos(π − |sweep|/2) of the centre), for any arc when r is under about
+  // 2.5 tol. The path could then go the short way round while the arc goes the long way (seen on traced
+  // input whose pixel steps are the size of the tolerance), so there the path must turn about the centre
+  // the way the arc does.
+  return !(large || r < 4 * tol) || Math.abs(turnAbout(pts, a, b, cx, cy, qx, qy, ex, ey) - sweep) < Math.PI;
+}
+
+/** The angle the path q, P_a … P_b, e turns through about (cx, cy), radians (positive from +x towards +y). */
+function turnAbout(pts: Float64Array, a: number, b: number, cx: number, cy: number, qx: number, qy: number, ex: number, ey: number): number {
+  let turn = 0, px = qx - cx, py = qy - cy;
+  for (let k = a; k <= b + 1; k++) {
+    const wx = (k > b ? ex : pts[2 * k]) - cx, wy = (k > b ? ey : pts[2 * k + 1]) - cy;
+    turn += Math.atan2(px * wy - py * wx, px * wx + py * wy);
+    px = wx;
+    py = wy;
+  }
+  return turn;
 }
