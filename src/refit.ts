@@ -17,7 +17,7 @@ import { parsePathData } from './svg/pathData.js';
 import { shapeToPath, type ShapeName } from './svg/shapes.js';
 import { parseTransform } from './svg/transform.js';
 import { applyX, applyY, invert, maxScale, multiply } from './svg/matrix.js';
-import { OP_A, OP_ARGS, OP_C, OP_M, OP_Q, type ParsedPath, type PathData } from './svg/pathTypes.js';
+import { OP_A, OP_ARGS, OP_C, OP_L, OP_M, OP_Q, OP_Z, type ParsedPath, type PathData } from './svg/pathTypes.js';
 import type { Matrix } from './svg/matrixTypes.js';
 import { flattenPath } from './geom/flatten.js';
 import type { Contour } from './geom/contour.js';
@@ -149,8 +149,25 @@ function hasCurves(p: PathData): boolean {
   return false;
 }
 
+/**
+ * The drawing commands of the input: a path's by letter as written; for polyline and polygon those of
+ * their equivalent path, M then L per further point (and Z for a polygon; SVG 2 §10.6, §10.7); else
+ * {"<element name>": 1}.
+ */
+function commandsOf(el: GeometryElement, p: ParsedPath): Record<string, number> {
+  if (el.name === 'path') return { ...p.counts };
+  if (el.name !== 'polyline' && el.name !== 'polygon') return { [el.name]: 1 };
+  let m = 0, l = 0, z = 0;
+  for (let i = 0; i < p.ops.length; i++) {
+    if (p.ops[i] === OP_M) m++;
+    else if (p.ops[i] === OP_L) l++;
+    else if (p.ops[i] === OP_Z) z++;
+  }
+  return z > 0 ? { M: m, L: l, Z: z } : { M: m, L: l };
+}
+
 function baseReport(el: GeometryElement, p: ParsedPath): ElementReport {
-  const commandsBefore = el.name === 'path' ? { ...p.counts } : { [el.name]: 1 };
+  const commandsBefore = commandsOf(el, p);
   return {
     index: el.index, name: el.name, id: el.id, ancestors: el.ancestors, commandsBefore,
     straightMovesNeeded: 0, segmentsAfter: { arcs: 0, lines: 0 }, deviation: null, kept: true, keptReason: null,

@@ -58,3 +58,16 @@ describe('geometry that is not rewritten is said so', () => {
     expect(r.text).toContain('<defs><path id="a" d="M0 0 C 1 1 2 1 3 0"/></defs>');
   });
 });
+
+describe('commands counted before the refit', () => {
+  it('polyline and polygon count as their equivalent path: M, then L per further point, Z for a polygon (SVG 2 §10.6, §10.7)', () => {
+    const svg = '<svg xmlns="http://www.w3.org/2000/svg" width="20mm" height="20mm" viewBox="0 0 20 20">' +
+      '<polyline id="pl" points="0,0 5,1 10,3 15,6"/><polygon id="pg" points="1,1 9,1 9,9 1,9"/><circle id="c" cx="10" cy="10" r="4"/></svg>';
+    const r = refitSvg(svg, { tolerance: 0.1 });
+    const by = (id: string) => r.report.elements.find((e) => e.id === id)!.commandsBefore;
+    expect(by('pl')).toEqual({ M: 1, L: 3 });
+    expect(by('pg')).toEqual({ M: 1, L: 3, Z: 1 });
+    expect(by('c')).toEqual({ circle: 1 });
+    expect(r.report.totals.commandsBefore).toBe(4 + 5 + 1);
+  });
+});

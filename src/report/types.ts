@@ -25,7 +25,7 @@ export interface ElementReport {
   id: string | null;
   /** Ancestor chain, e.g. "svg > g#layer1 > g". */
   ancestors: string;
-  /** Drawing commands before, by source command letter or element name. */
+  /** Drawing commands before, by source command letter (polyline, polygon: their equivalent path's M, L, Z), or {element name: 1} for the other shapes. */
   commandsBefore: Record<string, number>;
   /** Straight moves a controller would need to follow the original within the same tolerance. */
   straightMovesNeeded: number;
