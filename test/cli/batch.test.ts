@@ -215,6 +215,23 @@ describe('batch through the built binary (worker threads)', () => {
       .toEqual(['a.svg', 'd.svg', 'parts/b.svg', 'parts/broken.svg', 'parts/deep/c.svg'].map((f) => at('in', ...f.split('/'))));
   }, 60_000);
 
+  it('the bundled samples as a tree: every file refitted within the default tolerance, icons/ mirrored', () => {
+    const samples = join(ROOT, 'samples');
+    const r = node([samples, '-o', at('out'), '--jobs', '2', '--report-lines', at('l.jsonl')]);
+    expect(r.status, r.stderr).toBe(EXIT_OK);
+    const svgs = tree(samples).filter((f) => f.endsWith('.svg'));
+    expect(svgs).toEqual(expect.arrayContaining(['bracket.svg', 'coaster.svg', 'gear.svg', 'icons/heart.svg']));
+    expect(tree(at('out'))).toEqual(svgs);
+    const reports = readFileSync(at('l.jsonl'), 'utf8').trimEnd().split('\n').map((l) => JSON.parse(l));
+    expect(reports).toHaveLength(svgs.length);
+    for (const rep of reports) {
+      expect(rep.totals.withinTolerance, rep.file).toBe(true);
+      // Each sample has curves to refit, and every element with geometry is rewritten (none kept by the guarantee).
+      expect(rep.elements.some((e: { kept: boolean }) => !e.kept), rep.file).toBe(true);
+      expect(rep.elements.filter((e: { keptReason?: string }) => /over the tolerance/.test(e.keptReason ?? '')), rep.file).toEqual([]);
+    }
+  }, 60_000);
+
   it("the built library resolves by its package name (import ... from 'arcspline')", () => {
     const code = "import('arcspline').then((m) => console.log(typeof m.refitSvg, typeof m.compareSvg, m.VERSION))";
     const r = spawnSync(process.execPath, ['--input-type=module', '-e', code], { cwd: ROOT, encoding: 'utf8' });
