@@ -19,7 +19,7 @@
  * per-thread warm-up.
  */
 import { execFileSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readdirSync, rmSync, statSync, writeFileSync, mkdirSync } from 'node:fs';
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync, mkdirSync } from 'node:fs';
 import { availableParallelism, cpus, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { Writable } from 'node:stream';
@@ -128,11 +128,30 @@ async function usableCores(n: number): Promise<number> {
   return (n * t1) / tn;
 }
 
-/** One fresh worker thread's first and second pass over `files`, s (the first includes bringing its code up to speed). */
-async function warmUp(files: readonly string[]): Promise<[number, number]> {
+/** CPU seconds used so far by each thread of this process, by thread id (Linux /proc; empty elsewhere). */
+function threadCpu(): Map<string, number> {
+  const out = new Map<string, number>();
+  try {
+    for (const tid of readdirSync('/proc/self/task')) {
+      const stat = readFileSync(`/proc/self/task/${tid}/stat`, 'utf8');
+      const f = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+      out.set(tid, (Number(f[11]) + Number(f[12])) / 100); // utime + stime, in clock ticks of 1/100 s (USER_HZ)
+    }
+  } catch {
+    // Not Linux: no per-thread figures.
+  }
+  return out;
+}
+
+/** One pass's time and CPU: the busiest thread (the worker's own) and all other threads (V8's compiler and GC helpers, this thread). */
+interface Pass { s: number; worker: number; others: number }
+
+/** One fresh worker thread's first and second pass over `files` (the first includes bringing its code up to speed). */
+async function warmUp(files: readonly string[]): Promise<[Pass, Pass]> {
   const url = new URL('../dist/src/cli/worker.js', import.meta.url);
   const w = new Worker(url, { workerData: { arcsplineWorker: true, options: { tolerance: Number.parseFloat(TOLERANCE) } }, resourceLimits: { maxOldGenerationSizeMb: 1024 } });
-  const pass = async (): Promise<number> => {
+  const pass = async (): Promise<Pass> => {
+    const c0 = threadCpu();
     const t0 = performance.now();
     for (let id = 0; id < files.length; id++) {
       await new Promise<void>((resolve) => {
@@ -140,7 +159,9 @@ async function warmUp(files: readonly string[]): Promise<[number, number]> {
         w.postMessage({ id, path: files[id], wantOriginal: false });
       });
     }
-    return (performance.now() - t0) / 1000;
+    const s = (performance.now() - t0) / 1000;
+    const used = [...threadCpu()].map(([tid, c]) => c - (c0.get(tid) ?? 0)).sort((a, b) => b - a);
+    return { s, worker: used[0] ?? NaN, others: used.slice(1).reduce((x, y) => x + y, 0) };
   };
   try {
     return [await pass(), await pass()];
@@ -233,8 +254,10 @@ export async function benchBatch(): Promise<string> {
         `(ratio ${(perCore(jn.s, cores) / perCore(s.s, 1)).toFixed(2)})`,
       `  single-file path from the shell (one process per file, ${set0.length} of the files): ${(set0.length / shell).toFixed(1)} files/s; ` +
         `throughput per core of --jobs ${cores} against it: ${(perCore(jn.s, cores) / (set0.length / shell)).toFixed(1)}x`,
-      `  a fresh worker thread: first pass ${first.toFixed(2)} s, second pass ${second.toFixed(2)} s; ` +
-        `each job pays the difference, ${(first - second).toFixed(2)} s, once (bringing its code up to speed)`,
+      `  a fresh worker thread: first pass ${first.s.toFixed(2)} s, second pass ${second.s.toFixed(2)} s; ` +
+        `each job pays the difference, ${(first.s - second.s).toFixed(2)} s, once (bringing its code up to speed)`,
+      `    CPU s, first / second pass: the worker thread ${first.worker.toFixed(2)} / ${second.worker.toFixed(2)}, ` +
+        `the other threads (V8's compiler and GC helpers, the main thread) ${first.others.toFixed(2)} / ${second.others.toFixed(2)}`,
       `  checksum: ${s.bytes} bytes written by each`,
     ].join('\n');
   } finally {
