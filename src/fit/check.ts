@@ -39,13 +39,18 @@ export const FIT_ARGS = 9;
 
 const block = new Float64Array(FIT_ARGS);
 
+/** Put a piece's ends and the tolerance into an argument block (the slots a line check reads). */
+export function setEnds(g: Float64Array, qx: number, qy: number, ex: number, ey: number, tol: number): void {
+  g[FIT_QX] = qx;
+  g[FIT_QY] = qy;
+  g[FIT_EX] = ex;
+  g[FIT_EY] = ey;
+  g[FIT_TOL] = tol;
+}
+
 /** Line piece (qx, qy)–(ex, ey) against vertices a..b of pts. */
 export function lineFits(pts: Float64Array, a: number, b: number, qx: number, qy: number, ex: number, ey: number, tol: number): boolean {
-  block[FIT_QX] = qx;
-  block[FIT_QY] = qy;
-  block[FIT_EX] = ex;
-  block[FIT_EY] = ey;
-  block[FIT_TOL] = tol;
+  setEnds(block, qx, qy, ex, ey, tol);
   return lineFitsIn(pts, a, b, block);
 }
 
@@ -71,11 +76,7 @@ export function arcFits(
   block[FIT_CY] = cy;
   block[FIT_R] = r;
   block[FIT_SWEEP] = sweep;
-  block[FIT_QX] = qx;
-  block[FIT_QY] = qy;
-  block[FIT_EX] = ex;
-  block[FIT_EY] = ey;
-  block[FIT_TOL] = tol;
+  setEnds(block, qx, qy, ex, ey, tol);
   return arcFitsIn(pts, a, b, block);
 }
 

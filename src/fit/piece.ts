@@ -4,7 +4,7 @@
  * vertices it stands for.
  */
 import { arcStepScalar } from '../pga/arcStep.js';
-import { arcFitsIn, FIT_ARGS, FIT_CX, FIT_CY, FIT_EX, FIT_EY, FIT_QX, FIT_QY, FIT_R, FIT_SWEEP, FIT_TOL, len2, lineFitsIn } from './check.js';
+import { arcFitsIn, FIT_ARGS, FIT_CX, FIT_CY, FIT_R, FIT_SWEEP, len2, lineFitsIn, setEnds } from './check.js';
 
 
 /** A piece between two knots, with the motor that carries its start to its end. */
@@ -72,11 +72,7 @@ export function tryPiece(out: Float64Array, o: number, pts: Float64Array, a: num
   const sagitta = 0.5 * chord * Math.tan(0.5 * halfAngle);
   out[o + PIECE_X1] = ex;
   out[o + PIECE_Y1] = ey;
-  fit[FIT_QX] = qx;
-  fit[FIT_QY] = qy;
-  fit[FIT_EX] = ex;
-  fit[FIT_EY] = ey;
-  fit[FIT_TOL] = tol;
+  setEnds(fit, qx, qy, ex, ey, tol);
   if (sagitta <= LINE_SAGITTA * tol) {
     // The two lines of the step were parallel up to rounding: a translation.
     if (!lineFitsIn(pts, a, b, fit)) return NO_PIECE;
