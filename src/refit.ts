@@ -95,6 +95,22 @@ export interface ElementOutcome {
   warnings: string[];
 }
 
+/**
+ * One warning line when rewritten elements came out with more pieces than the straight moves their
+ * original needs within the tolerance: the input wiggles by about the tolerance (a traced bitmap at
+ * its pixel size), so arcs can only follow the wiggles; null when none did.
+ */
+function wigglySummary(elements: readonly ElementReport[], tol: number): string | null {
+  const over = elements.filter((e) => !e.kept && e.segmentsAfter.arcs + e.segmentsAfter.lines > e.straightMovesNeeded);
+  if (over.length === 0) return null;
+  const worst = over.reduce((w, e) => (e.segmentsAfter.arcs + e.segmentsAfter.lines - e.straightMovesNeeded > w.segmentsAfter.arcs + w.segmentsAfter.lines - w.straightMovesNeeded ? e : w));
+  const rewritten = elements.filter((e) => !e.kept).length;
+  const tag = `<${worst.name}${worst.id ? ` id="${worst.id}"` : ''}> (element ${worst.index})`;
+  return `${over.length} of ${rewritten} rewritten elements came out with more arcs and lines than the straight moves the original needs within ${+tol.toPrecision(6)} mm ` +
+    `(${tag}: ${worst.segmentsAfter.arcs + worst.segmentsAfter.lines} against ${worst.straightMovesNeeded}): the drawing wiggles by about the tolerance ` +
+    '(a traced bitmap\'s pixel steps, for one), and a larger tolerance gives fewer, smoother pieces';
+}
+
 /** Refit one rewritable element of a read document. */
 export function refitOne(doc: Pick<SvgDocument, 'text' | 'rootToMm'>, el: GeometryElement, opts: Options, times: StageTimes): ElementOutcome {
   const warnings: string[] = [];
@@ -117,6 +133,8 @@ export function assemble(
     elements.push(o.report);
     if (o.edits) edits.push(...o.edits);
   }
+  const wiggly = wigglySummary(elements, opts.tolerance);
+  if (wiggly) warnings.push(wiggly);
   const t = now();
   const out = applyEdits(text, edits);
   times.write += now() - t;

@@ -71,3 +71,35 @@ describe('commands counted before the refit', () => {
     expect(r.report.totals.commandsBefore).toBe(4 + 5 + 1);
   });
 });
+
+describe('a drawing that wiggles by about the tolerance is said so', () => {
+  // Our own scenario: a 3 mm hole traced at 12 pixels per mm, its vertices on the pixel grid give or take a
+  // quarter pixel; half a pixel (0.042 mm) is nearly a 0.05 mm tolerance.
+  const pts: string[] = [];
+  let s = 7;
+  const rand = (): number => ((s = (s * 1664525 + 1013904223) >>> 0) / 2 ** 32);
+  for (let i = 0; i < 300; i++) {
+    const a = (-2 * Math.PI * i) / 300;
+    const x = Math.round((10 + 3 * Math.cos(a)) * 12) / 12 + ((rand() - 0.5) * 0.5) / 12;
+    const y = Math.round((10 + 3 * Math.sin(a)) * 12) / 12 + ((rand() - 0.5) * 0.5) / 12;
+    pts.push(`${x.toFixed(3)},${y.toFixed(3)}`);
+  }
+  const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="20mm" height="20mm" viewBox="0 0 20 20"><path id="hole" d="M${pts.join(' ')}Z"/></svg>`;
+
+  it('at 0.05 mm it needs more pieces than straight moves: one warning names the element and both counts', () => {
+    const r = refitSvg(svg, { tolerance: 0.05 });
+    const e = r.report.elements[0];
+    expect(e.kept).toBe(false);
+    expect(e.segmentsAfter.arcs + e.segmentsAfter.lines).toBeGreaterThan(e.straightMovesNeeded);
+    const w = r.report.warnings.filter((l) => /wiggles by about the tolerance/.test(l));
+    expect(w).toHaveLength(1);
+    expect(w[0]).toContain(`<path id="hole"> (element 1): ${e.segmentsAfter.arcs + e.segmentsAfter.lines} against ${e.straightMovesNeeded}`);
+  });
+
+  it('at 0.2 mm, above the pixel size, it comes back as a few arcs and no such warning', () => {
+    const r = refitSvg(svg, { tolerance: 0.2 });
+    const e = r.report.elements[0];
+    expect(e.segmentsAfter.arcs + e.segmentsAfter.lines).toBeLessThanOrEqual(4);
+    expect(r.report.warnings.filter((l) => /wiggles/.test(l))).toEqual([]);
+  });
+});
