@@ -127,7 +127,15 @@ export function assemble(
   if (untouched) warnings.push(untouched);
   const edits: Edit[] = [];
   const elements: ElementReport[] = [];
-  for (const o of outcomes) {
+  const byIndex = new Map(outcomes.map((o) => [o.index, o]));
+  for (const el of doc.elements) {
+    // Geometry left as written because it is not drawn where it stands is listed too, with the reason.
+    if (!el.rewritable) {
+      elements.push(untouchedReport(el));
+      continue;
+    }
+    const o = byIndex.get(el.index);
+    if (!o) continue;
     warnings.push(...o.warnings);
     if (!o.report) continue;
     elements.push(o.report);
@@ -172,9 +180,10 @@ function hasCurves(p: PathData): boolean {
  * their equivalent path, M then L per further point (and Z for a polygon; SVG 2 §10.6, §10.7); else
  * {"<element name>": 1}.
  */
-function commandsOf(el: GeometryElement, p: ParsedPath): Record<string, number> {
+function commandsOf(el: GeometryElement, p: ParsedPath | null): Record<string, number> {
+  if (el.name !== 'path' && el.name !== 'polyline' && el.name !== 'polygon') return { [el.name]: 1 };
+  if (p === null) return {};
   if (el.name === 'path') return { ...p.counts };
-  if (el.name !== 'polyline' && el.name !== 'polygon') return { [el.name]: 1 };
   let m = 0, l = 0, z = 0;
   for (let i = 0; i < p.ops.length; i++) {
     if (p.ops[i] === OP_M) m++;
@@ -184,7 +193,15 @@ function commandsOf(el: GeometryElement, p: ParsedPath): Record<string, number> 
   return z > 0 ? { M: m, L: l, Z: z } : { M: m, L: l };
 }
 
-function baseReport(el: GeometryElement, p: ParsedPath): ElementReport {
+/** The report entry of an element that is not rewritable: kept, with the document reader's reason. */
+function untouchedReport(el: GeometryElement): ElementReport {
+  // Its path data or shape warnings are not the file's: it is not drawn where it stands.
+  const r = baseReport(el, readGeometry(el, []));
+  r.keptReason = el.reason ?? 'not rewritable';
+  return r;
+}
+
+function baseReport(el: GeometryElement, p: ParsedPath | null): ElementReport {
   const commandsBefore = commandsOf(el, p);
   return {
     index: el.index, name: el.name, id: el.id, ancestors: el.ancestors, commandsBefore,

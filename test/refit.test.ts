@@ -49,13 +49,23 @@ describe('coordinates of the written arcs', () => {
 });
 
 describe('geometry that is not rewritten is said so', () => {
-  it('one warning line counts the untouched elements by reason (defs: SVG 1.1 §5.3.2, the defs element, section number from memory: never rendered in place)', () => {
+  it('one warning line counts the untouched elements by reason, and the report lists each (defs: SVG 1.1 §5.3.2, the defs element, section number from memory: never rendered in place)', () => {
     const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="10mm" height="10mm" viewBox="0 0 10 10">
 <defs><path id="a" d="M0 0 C 1 1 2 1 3 0"/></defs><g transform="scale(0)"><path d="M0 0 C 1 1 2 1 3 0"/></g><path d="M0 0 C 1 1 2 1 3 0"/></svg>`;
     const r = refitSvg(svg, { tolerance: 0.05 });
     const line = r.report.warnings.find((w) => w.includes('left as written'));
     expect(line).toMatch(/^2 geometry elements left as written: inside <defs>.*; singular transform/);
     expect(r.text).toContain('<defs><path id="a" d="M0 0 C 1 1 2 1 3 0"/></defs>');
+    // And each of them is an entry of the report, kept, with its reason, in document order.
+    expect(r.report.elements.map((e) => [e.index, e.kept])).toEqual([[2, true], [4, true], [5, false]]);
+    const [defs, singular] = r.report.elements;
+    expect(defs.id).toBe('a');
+    expect(defs.keptReason).toMatch(/inside <defs>/);
+    expect(defs.commandsBefore).toEqual({ M: 1, C: 1 });
+    expect(defs.deviation).toBeNull();
+    expect(defs.segmentsAfter).toEqual({ arcs: 0, lines: 0 });
+    expect(singular.keptReason).toMatch(/singular transform/);
+    expect(r.report.totals).toMatchObject({ elements: 3, rewritten: 1, kept: 2, withinTolerance: true });
   });
 });
 

@@ -45,6 +45,7 @@ export interface FileReport {
   bytesIn: number;
   bytesOut: number;
   timeMs: number;
+  /** Every geometry element in document order: rewritten, kept after measuring, or kept as not drawn where it stands (with the reason). */
   elements: ElementReport[];
   totals: {
     elements: number;
