@@ -12,21 +12,27 @@ import { refitSvg } from '../src/refit.js';
 import { bigDrawing } from './bigfile.js';
 import { median, fmt } from './stats.js';
 
-/** The same run on all cores through the compiled library (worker threads load dist/), when built. */
+/**
+ * The same run shared over all cores through the compiled library (worker threads load dist/), when
+ * built. Forced (minChars 0): by default a file this size stays on one thread, since each fresh worker
+ * first compiles its code (src/refitParallel.ts, parallelMinChars).
+ */
 async function parallelLine(text: string, mb: number, runs: number, oneThreadMs: number): Promise<string> {
   const built = new URL('../dist/src/refitParallel.js', import.meta.url);
   if (!existsSync(fileURLToPath(built))) return '  all cores: not run (build first: npm ci or npx tsc)';
-  const { refitSvgParallel } = (await import(built.href)) as typeof import('../src/refitParallel.js');
+  const { refitSvgParallel, parallelMinChars } = (await import(built.href)) as typeof import('../src/refitParallel.js');
   const jobs = availableParallelism();
-  await refitSvgParallel(text, { tolerance: 0.05 }, null, jobs); // warm-up
+  await refitSvgParallel(text, { tolerance: 0.05 }, null, jobs, 0); // warm-up
   const totals: number[] = [];
   for (let k = 0; k < runs; k++) {
     const t0 = performance.now();
-    await refitSvgParallel(text, { tolerance: 0.05 }, null, jobs);
+    await refitSvgParallel(text, { tolerance: 0.05 }, null, jobs, 0);
     totals.push(performance.now() - t0);
   }
   const t = median(totals);
-  return `  all ${jobs} cores (refitSvgParallel, as the CLI runs one file): total ${fmt(t)} ms = ${fmt(mb / (t / 1000), 1)} MB/s, ${fmt(oneThreadMs / t, 2)}× the one-thread run`;
+  const from = parallelMinChars(jobs) / 2 ** 20;
+  return `  shared over ${jobs} threads (refitSvgParallel forced; fresh workers each run; the CLI shares a file only from ${fmt(from)} Mi characters): ` +
+    `total ${fmt(t)} ms = ${fmt(mb / (t / 1000), 1)} MB/s, ${fmt(oneThreadMs / t, 2)}× the one-thread run`;
 }
 
 export async function benchPipelineAll(runs = 3): Promise<string> {
