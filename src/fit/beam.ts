@@ -56,17 +56,29 @@ const PER_KNOT = 2;
 /** Candidates expanded per level, as a multiple of the beam width (each is ranked by its own reach). */
 const CANDIDATES = 2;
 
-/** How a search must end. */
-export type SearchEnd =
-  /** At the last vertex, with any tangent (an open end or a corner). */
-  | { kind: 'point' }
-  /** At the last vertex (the seam, = the start) with the start tangent of its own seed. */
-  | { kind: 'seam' }
-  /**
-   * Tangent to the straight run that follows: the line through (px, py) with unit
-   * direction (dx, dy), touching it at a parameter in [tMin, tMax] (the run's extent).
-   */
-  | { kind: 'line'; px: number; py: number; dx: number; dy: number; tMin: number; tMax: number };
+/**
+ * How a search must end: `point`, at the last vertex with any tangent (an open
+ * end or a corner); `seam`, at the last vertex (the seam, = the start) with the
+ * start tangent of its own seed; `line`, tangent to the straight run that
+ * follows, the line through (px, py) with unit direction (dx, dy), touching it
+ * at a parameter in [tMin, tMax] (the run's extent). One shape for all three
+ * (the line's fields are 0 for the others), so the search's code sees one kind
+ * of object.
+ */
+export interface SearchEnd {
+  kind: 'point' | 'seam' | 'line';
+  px: number;
+  py: number;
+  dx: number;
+  dy: number;
+  tMin: number;
+  tMax: number;
+}
+
+/** A search end at the last vertex: `point` (any tangent) or `seam` (the start tangent). */
+export function endAt(kind: 'point' | 'seam'): SearchEnd {
+  return { kind, px: 0, py: 0, dx: 0, dy: 0, tMin: 0, tMax: 0 };
+}
 
 export interface SearchParams {
   pts: Float64Array;
@@ -292,8 +304,10 @@ export function searchSpline(p: SearchParams): SearchResult {
     if (!best || t.level < best.level) best = t;
   };
   store.count = 0;
-  let frontier: Node[] = p.seeds.map((t) => seedNode(p, t[0], t[1]));
-  frontier.forEach((n, i) => expand(n, i, p, onTerminal));
+  // Arrays built by push only: one kind of array throughout (map makes another, and its readers deoptimize).
+  let frontier: Node[] = [];
+  for (const t of p.seeds) frontier.push(seedNode(p, t[0], t[1]));
+  for (let i = 0; i < frontier.length; i++) expand(frontier[i], i, p, onTerminal);
   let expanded = frontier;
   const order: number[] = [];
   while (frontier.length > 0) {
@@ -321,7 +335,7 @@ export function searchSpline(p: SearchParams): SearchResult {
     }
     // The unkept children are forgotten: the store is refilled by the candidates' children.
     store.count = 0;
-    cand.forEach((c, i) => expand(c, i, p, onTerminal));
+    for (let i = 0; i < cand.length; i++) expand(cand[i], i, p, onTerminal);
     // Records name their parents by number in `cand`; rank a copy.
     expanded = cand;
     frontier = cand.slice().sort((u, v) => v.reach - u.reach || v.a - u.a || u.err - v.err).slice(0, p.width);

@@ -66,6 +66,7 @@ export function straightenFlatArcs(pts: Float64Array, pieces: Piece[], maxRadius
     const dx = p.x1 - p.x0, dy = p.y1 - p.y0, l = Math.hypot(dx, dy);
     // The chord leaves the neighbours' tangents by half the arc's angle: only a negligible kink is allowed.
     if (rad <= maxRadius || l / (2 * rad) > MAX_KINK || !lineFits(pts, p.a, p.b, p.x0, p.y0, p.x1, p.y1, tol)) return p;
-    return { ...p, kind: 'line', ms: 1, mp: -0.5 * dx, mq: -0.5 * dy, mr: 0, tx: dx / l, ty: dy / l };
+    // Written out in the order of every other piece (a spread makes objects of another shape, which deoptimizes their readers).
+    return { kind: 'line', ms: 1, mp: -0.5 * dx, mq: -0.5 * dy, mr: 0, x0: p.x0, y0: p.y0, x1: p.x1, y1: p.y1, a: p.a, b: p.b, tx: dx / l, ty: dy / l };
   });
 }

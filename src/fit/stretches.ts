@@ -4,7 +4,7 @@
  * ends of an open contour, or, for a smooth closed contour without either, one
  * stretch round from a seam back to itself.
  */
-import { searchSpline, type SearchEnd } from './beam.js';
+import { endAt, searchSpline, type SearchEnd } from './beam.js';
 import { makePiece, type Piece } from './piece.js';
 import { mergeNeighbours, sameCarrier, straightenFlatArcs } from './merge.js';
 import { openSeeds, seamSeeds } from './seeds.js';
@@ -72,7 +72,7 @@ function fitStretch(pts: Float64Array, last: number, qx: number, qy: number, see
   let start = 0;
   for (;;) {
     const s = seeds && start === 0 ? seeds : end.kind === 'seam' && start === 0 ? seamSeeds(pts, last) : openSeeds(pts, start, last, qx, qy);
-    const res = searchSpline({ pts, start, last, qx, qy, seeds: s, end: end.kind === 'seam' && start > 0 ? { kind: 'point' } : end, tol: sp.tol, width: sp.width });
+    const res = searchSpline({ pts, start, last, qx, qy, seeds: s, end: end.kind === 'seam' && start > 0 ? endAt('point') : end, tol: sp.tol, width: sp.width });
     all.push(...res.pieces);
     if (res.complete) break;
     breaks++;
@@ -133,7 +133,7 @@ export function fitStretches(sp: StretchParams): StretchFit {
     const seeds = A.run && seed ? [seed] : null;
     if (e > s) {
       const pts = slice(cxy, mc, s, e);
-      const end: SearchEnd = B.run ? lineEnd(B.run, pts, e - s, cxy, mc, e) : { kind: 'point' };
+      const end: SearchEnd = B.run ? lineEnd(B.run, pts, e - s, cxy, mc, e) : endAt('point');
       const fit = fitStretch(pts, e - s, qx, qy, seeds, end, sp);
       breaks += fit.breaks;
       out.push(...shift(fit.pieces, s));
@@ -186,7 +186,7 @@ function fitSeam(sp: StretchParams): StretchFit {
   const { cxy, mc } = sp;
   const run = (seam: number): StretchFit => {
     const pts = slice(cxy, mc, seam, seam + mc);
-    const fit = fitStretch(pts, mc, pts[0], pts[1], null, { kind: 'seam' }, sp);
+    const fit = fitStretch(pts, mc, pts[0], pts[1], null, endAt('seam'), sp);
     shift(fit.pieces, seam);
     return fit;
   };
