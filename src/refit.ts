@@ -125,6 +125,8 @@ export function assemble(
   const warnings = doc.warnings.slice();
   const untouched = untouchedSummary(doc);
   if (untouched) warnings.push(untouched);
+  const copies = copiesSummary(doc, opts.tolerance);
+  if (copies) warnings.push(copies);
   const edits: Edit[] = [];
   const elements: ElementReport[] = [];
   const byIndex = new Map(outcomes.map((o) => [o.index, o]));
@@ -222,7 +224,8 @@ function refitElement(
     report.keptReason = 'exact shape (kept as written)';
     return { report, edits: null };
   }
-  const tol = opts.tolerance;
+  // A copy drawn larger by <use> magnifies any deviation: fit and check within the tolerance over that factor.
+  const tol = opts.tolerance / Math.max(1, el.copyScale);
   const curved = hasCurves(p);
   // Where the written coordinates live: the element's own user units, or root user units when baking.
   const writtenToMm: Matrix = opts.bakeTransforms ? doc.rootToMm : el.toMm;
@@ -298,6 +301,17 @@ function refitElement(
   }
   report.kept = false;
   return { report, edits: elementEdits(doc, el, d, opts) };
+}
+
+/** One line when rewritable elements are drawn larger elsewhere by <use>: they are fitted within a share of the tolerance. */
+function copiesSummary(doc: SvgDocument, tol: number): string | null {
+  const larger = doc.elements.filter((el) => el.rewritable && el.copyScale > 1);
+  if (larger.length === 0) return null;
+  const most = larger.reduce((a, b) => (b.copyScale > a.copyScale ? b : a));
+  const k = +most.copyScale.toPrecision(3);
+  const tag = `<${most.name}${most.id ? ` id="${most.id}"` : ''}> (element ${most.index})`;
+  return `${larger.length} element${larger.length > 1 ? 's are' : ' is'} drawn again larger by <use> (up to ${k}×, ${tag}): ` +
+    `each is fitted and measured where it stands within the tolerance over its factor (there ${+(tol / k).toPrecision(3)} mm), so every copy stays within ${+tol.toPrecision(6)} mm`;
 }
 
 /** One line naming the geometry left as written because it is not drawn where it stands (or cannot be), by reason. */

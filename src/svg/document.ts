@@ -17,7 +17,9 @@
  *   all (hand-written files often omit xmlns; a warning says so, and then
  *   un-namespaced descendants count as SVG too).
  * - `<use>` is not expanded: what it references is rewritten where it stands
- *   (if it stands in rendered content), which changes every instance alike.
+ *   (if it stands in rendered content), which changes every copy alike; each
+ *   element's `copyScale` (./copies.ts) says how much larger a copy may draw
+ *   it, so the refit can keep every copy within the tolerance.
  * - A `transform` on the root `<svg>` acts as if on a parent of it (S2 §8.6),
  *   so it is folded into `rootToMm`, not into the elements' `ctm`.
  * - CSS is not applied: `transform` or `display` set by a `style` attribute
@@ -40,6 +42,7 @@ import { lengthToUser, mmPerPx } from './units.js';
 import { parsePreserveAspectRatio, parseViewBox, rootToMm, viewBoxTransform } from './viewport.js';
 import { errorAt, SvgInputError } from './errors.js';
 import { createEntityGuard, XML_LIMITS } from './xmlSafety.js';
+import { copyScales, type UseRef, type UseTarget } from './copies.js';
 
 /** The SVG namespace URI. */
 export const SVG_NS = 'http://www.w3.org/2000/svg';
@@ -72,6 +75,8 @@ export interface GeometryElement {
   /** False when the element must be left untouched; `reason` says why. */
   rewritable: boolean;
   reason: string | null;
+  /** Most a copy drawn by `<use>` enlarges it, in mm (1 when it has no larger copy; ./copies.ts). */
+  copyScale: number;
 }
 
 /** A read document: the original text and what we found in it. */
@@ -105,6 +110,7 @@ const NEVER_RENDERED = new Set<string>([
 const DISPLAY_NONE_STYLE = /(?:^|;)\s*display\s*:\s*none\s*(?:!important\s*)?(?:;|$)/i;
 const MAX_DEPTH = 1_000_000;
 const XML_NS = 'http://www.w3.org/XML/1998/namespace';
+const XLINK_NS = 'http://www.w3.org/1999/xlink';
 const ANCESTOR_LEVELS = 24;
 
 /**
@@ -136,6 +142,10 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
   const rootNs = Object.assign(Object.create(null) as Record<string, string>, { xml: XML_NS, '': '' });
   let depth = 0;
   let count = 0;
+  // Targets of <use> (the first element with each id) and the uses themselves.
+  const targets = new Map<string, UseTarget>();
+  const uses: UseRef[] = [];
+  const idAt: (string | null)[] = [];
   let noNamespaceIsSvg = false;
   let docRootToMm: Matrix = identityMatrix();
   let physical = false;
@@ -265,7 +275,23 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
         endTag: null,
         rewritable: reason === null,
         reason,
+        copyScale: 1,
       });
+    }
+    idAt[depth] = null;
+    if (id !== null && !targets.has(id)) {
+      targets.set(id, { first: index, last: index, parentCtm: parentCtm ?? identityMatrix() });
+      idAt[depth] = id;
+    }
+    if (isSvg && local === 'use') {
+      // S2 §5.6: href, or xlink:href under any prefix bound to XLink; only references into this document.
+      let href = at.href;
+      if (href === undefined) for (const k in at) if (k.endsWith(':href') && ns[k.slice(0, -5)] === XLINK_NS) href = at[k];
+      const ref = href?.trim();
+      if (ref !== undefined && ref.startsWith('#') && ref.length > 1) {
+        const x = lengthToUser(at.x, w, 0), y = lengthToUser(at.y, h, 0);
+        uses.push({ index, target: ref.slice(1), placement: multiply(new Float64Array(6), ctm, matrix(1, 0, 0, 1, x, y)) });
+      }
     }
     let forChildren = reason;
     if (forChildren === null) {
@@ -286,6 +312,8 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
 
   parser.on('closetag', (tag: SaxesTagPlain) => {
     depth--;
+    const tid = idAt[depth];
+    if (tid !== null && tid !== undefined) targets.get(tid)!.last = count - 1;
     const g = geomAt[depth];
     if (g >= 0 && !tag.isSelfClosing) {
       const end = parser.position;
@@ -299,6 +327,14 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
     if (e instanceof SvgInputError) throw e;
     throw new SvgInputError(`XML error: ${(e as Error).message}`);
   }
+  const scales = copyScales(elements.map((e) => e.index), uses, targets, docRootToMm);
+  elements.forEach((e, i) => {
+    e.copyScale = scales[i];
+    if (!Number.isFinite(scales[i]) && e.rewritable) {
+      e.rewritable = false;
+      e.reason = 'drawn again by <use> in a cycle or a chain of more than 16 (copies not bounded)';
+    }
+  });
   return { text, elements, rootToMm: docRootToMm, physicalSize: physical, warnings: [...guard.warnings, ...warnings] };
 }
 
