@@ -17,6 +17,10 @@
  * only makes the bound stricter. A use inside its own target draws nothing
  * (a circular reference) and is skipped; chains deeper than MAX_CHAIN, and
  * cycles through several uses, give Infinity.
+ *
+ * The targets containing a position are its ancestors (and itself), so the
+ * bound of a position is the largest over its ancestors' own uses: computed
+ * once per element by walking up to the nearest ancestor already known.
  */
 import type { Matrix } from './matrixTypes.js';
 import { invert, maxScale, multiply } from './matrix.js';
@@ -42,22 +46,21 @@ export interface UseRef {
 
 /** Longest chain of uses followed; beyond it (or round a cycle) the bound is Infinity. */
 export const MAX_CHAIN = 16;
-/** More uses than this are not followed (the work grows with their square): what they copy gets Infinity. */
-export const MAX_USES = 20_000;
 
 /**
- * For each document position in `positions` (ascending document-order
- * indices), the largest factor by which a copy drawn by `<use>` enlarges it,
- * in millimetres: 1 when it is drawn only where it stands or only smaller.
+ * For each document position in `positions`, the largest factor by which a
+ * copy drawn by `<use>` enlarges it, in millimetres: 1 when it is drawn only
+ * where it stands or only smaller.
+ * @param parentOf the parent's document-order index of every element (−1 for the root)
  */
 export function copyScales(
-  positions: readonly number[], uses: readonly UseRef[], targets: ReadonlyMap<string, UseTarget>, rootToMm: Matrix,
+  positions: readonly number[], uses: readonly UseRef[], targets: ReadonlyMap<string, UseTarget>,
+  parentOf: ArrayLike<number>, rootToMm: Matrix,
 ): number[] {
-  const out = positions.map(() => 1);
-  if (uses.length === 0) return out;
+  if (uses.length === 0) return positions.map(() => 1);
   const toRoot = invert(new Float64Array(6), rootToMm);
-  // Each use's own factor and the document range it copies.
-  const live: { use: UseRef; t: UseTarget; factor: number }[] = [];
+  // The uses of each target element (by its index), with the factor each applies.
+  const usesOf = new Map<number, { at: number; factor: number }[]>();
   for (const use of uses) {
     const t = targets.get(use.target);
     // A use inside what it references is a circular reference: in error, it draws nothing (S2 §5.6).
@@ -68,30 +71,38 @@ export function copyScales(
       const m = multiply(new Float64Array(6), multiply(new Float64Array(6), rootToMm, use.placement), multiply(new Float64Array(6), back, toRoot));
       factor = maxScale(m);
     }
-    live.push({ use, t, factor: Number.isFinite(factor) ? factor : Infinity });
+    const list = usesOf.get(t.first) ?? [];
+    list.push({ at: use.index, factor: Number.isFinite(factor) ? factor : Infinity });
+    usesOf.set(t.first, list);
   }
-  // By where their targets start, so a position need look only at targets that start before it.
-  live.sort((a, b) => a.t.first - b.t.first);
-  const tooMany = uses.length > MAX_USES;
-  // The factor of a position: over the uses whose target contains it, that use's factor times the use's own position's.
-  const memo = new Map<number, number>();
-  const onStack = new Set<number>();
-  const scaleAt = (pos: number, depth: number): number => {
-    const known = memo.get(pos);
-    if (known !== undefined) return known;
-    if (depth > MAX_CHAIN || onStack.has(pos)) return Infinity;
-    onStack.add(pos);
-    let s = 1;
-    for (const l of live) {
-      if (l.t.first > pos) break;
-      if (pos > l.t.last) continue;
-      s = tooMany ? Infinity : Math.max(s, l.factor * scaleAt(l.use.index, depth + 1));
-      if (s === Infinity) break;
+  // bound[i]: the largest factor over i and its ancestors' own uses; 0 = not known yet; −1 = being worked out.
+  const bound = new Float64Array(parentOf.length);
+  const boundAt = (pos: number, depth: number): number => {
+    if (depth > MAX_CHAIN) return Infinity;
+    // Walk up to the nearest ancestor already known (or past the root), then fill in downwards.
+    const chain: number[] = [];
+    let a = pos, above = 1;
+    while (a >= 0) {
+      if (bound[a] > 0) {
+        above = bound[a];
+        break;
+      }
+      if (bound[a] < 0) return Infinity; // a cycle through uses
+      chain.push(a);
+      a = parentOf[a];
     }
-    onStack.delete(pos);
-    memo.set(pos, s);
-    return s;
+    for (let k = chain.length - 1; k >= 0; k--) {
+      const x = chain[k];
+      let s = above;
+      const own = usesOf.get(x);
+      if (own) {
+        bound[x] = -1;
+        for (const u of own) s = Math.max(s, u.factor * boundAt(u.at, depth + 1));
+      }
+      bound[x] = s;
+      above = s;
+    }
+    return above;
   };
-  for (let i = 0; i < positions.length; i++) out[i] = scaleAt(positions[i], 0);
-  return out;
+  return positions.map((p) => boundAt(p, 0));
 }

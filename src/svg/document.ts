@@ -146,6 +146,9 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
   const targets = new Map<string, UseTarget>();
   const uses: UseRef[] = [];
   const idAt: (string | null)[] = [];
+  // Every element's parent by document-order index (−1 for the root), and the open elements' indices.
+  const parentOf: number[] = [];
+  const indexAt: number[] = [];
   let noNamespaceIsSvg = false;
   let docRootToMm: Matrix = identityMatrix();
   let physical = false;
@@ -278,6 +281,8 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
         copyScale: 1,
       });
     }
+    parentOf[index] = depth > 0 ? indexAt[depth - 1] : -1;
+    indexAt[depth] = index;
     idAt[depth] = null;
     if (id !== null && !targets.has(id)) {
       targets.set(id, { first: index, last: index, parentCtm: parentCtm ?? identityMatrix() });
@@ -327,7 +332,7 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
     if (e instanceof SvgInputError) throw e;
     throw new SvgInputError(`XML error: ${(e as Error).message}`);
   }
-  const scales = copyScales(elements.map((e) => e.index), uses, targets, docRootToMm);
+  const scales = copyScales(elements.map((e) => e.index), uses, targets, parentOf, docRootToMm);
   elements.forEach((e, i) => {
     e.copyScale = scales[i];
     if (!Number.isFinite(scales[i]) && e.rewritable) {
