@@ -23,7 +23,8 @@
  * once per element by walking up to the nearest ancestor already known.
  */
 import type { Matrix } from './matrixTypes.js';
-import { invert, maxScale, multiply } from './matrix.js';
+import { identityMatrix, invert, matrix, maxScale, multiply } from './matrix.js';
+import { lengthToUser } from './units.js';
 
 /** An element with an id, as a target of `<use>`: where it lies in document order and its parent's CTM. */
 export interface UseTarget {
@@ -32,6 +33,8 @@ export interface UseTarget {
   last: number;
   /** CTM of the system the target stands in (its parent's), root user units. */
   parentCtm: Matrix;
+  /** Whether it is an `<svg>`, whose viewport a use's width and height replace. */
+  isSvg: boolean;
 }
 
 /** A `<use>` element: what it points at and where it places it. */
@@ -42,6 +45,8 @@ export interface UseRef {
   target: string;
   /** The use's CTM with its translate(x, y) applied after its transform, root user units. */
   placement: Matrix;
+  /** Whether it sets width or height (which resize a referenced `<svg>`'s viewport, S2 §5.6). */
+  sized: boolean;
 }
 
 /** Longest chain of uses followed; beyond it (or round a cycle) the bound is Infinity. */
@@ -67,7 +72,8 @@ export function copyScales(
     if (!t || (use.index >= t.first && use.index <= t.last)) continue;
     const back = invert(new Float64Array(6), t.parentCtm);
     let factor = Infinity;
-    if (back && toRoot) {
+    // A resized <svg> viewport changes its content's scale in a way not counted here: no bound (left as written).
+    if (back && toRoot && !(t.isSvg && use.sized)) {
       const m = multiply(new Float64Array(6), multiply(new Float64Array(6), rootToMm, use.placement), multiply(new Float64Array(6), back, toRoot));
       factor = maxScale(m);
     }
@@ -105,4 +111,58 @@ export function copyScales(
     return above;
   };
   return positions.map((p) => boundAt(p, 0));
+}
+
+const XLINK_NS = 'http://www.w3.org/1999/xlink';
+
+/**
+ * Collects, while the reader walks the document, what `copyScales` needs:
+ * every element's parent, the first element with each id, and the uses.
+ */
+export class CopyRecorder {
+  private readonly targets = new Map<string, UseTarget>();
+  private readonly uses: UseRef[] = [];
+  private readonly parentOf: number[] = [];
+  private readonly indexAt: number[] = [];
+  private readonly idAt: (string | null)[] = [];
+
+  /**
+   * An element opens at `depth` (its start tag was just read).
+   * @param ctm its CTM (after its own transform), root user units
+   * @param parentCtm its parent's CTM (null for the root)
+   * @param ns prefix → namespace URI in scope, for xlink:href
+   * @param vw, vh size of the nearest viewport, for percentages in x and y
+   */
+  open(
+    index: number, depth: number, name: string | null, id: string | null, at: Record<string, string>,
+    ctm: Matrix, parentCtm: Matrix | null, ns: Record<string, string>, vw: number, vh: number,
+  ): void {
+    this.parentOf[index] = depth > 0 ? this.indexAt[depth - 1] : -1;
+    this.indexAt[depth] = index;
+    this.idAt[depth] = null;
+    if (id !== null && !this.targets.has(id)) {
+      this.targets.set(id, { first: index, last: index, parentCtm: parentCtm ?? identityMatrix(), isSvg: name === 'svg' });
+      this.idAt[depth] = id;
+    }
+    if (name !== 'use') return;
+    // S2 §5.6: href, or xlink:href under any prefix bound to XLink; only references into this document.
+    let href = at.href;
+    if (href === undefined) for (const k in at) if (k.endsWith(':href') && ns[k.slice(0, -5)] === XLINK_NS) href = at[k];
+    const ref = href?.trim();
+    if (ref === undefined || !ref.startsWith('#') || ref.length < 2) return;
+    const x = lengthToUser(at.x, vw, 0), y = lengthToUser(at.y, vh, 0);
+    const placement = multiply(new Float64Array(6), ctm, matrix(1, 0, 0, 1, x, y));
+    this.uses.push({ index, target: ref.slice(1), placement, sized: at.width !== undefined || at.height !== undefined });
+  }
+
+  /** The element open at `depth` closes; `lastIndex` is the document-order index of its last descendant. */
+  close(depth: number, lastIndex: number): void {
+    const id = this.idAt[depth];
+    if (id !== null && id !== undefined) this.targets.get(id)!.last = lastIndex;
+  }
+
+  /** `copyScales` for these positions. */
+  scales(positions: readonly number[], rootToMm: Matrix): number[] {
+    return copyScales(positions, this.uses, this.targets, this.parentOf, rootToMm);
+  }
 }

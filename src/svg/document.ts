@@ -42,7 +42,7 @@ import { lengthToUser, mmPerPx } from './units.js';
 import { parsePreserveAspectRatio, parseViewBox, rootToMm, viewBoxTransform } from './viewport.js';
 import { errorAt, SvgInputError } from './errors.js';
 import { createEntityGuard, XML_LIMITS } from './xmlSafety.js';
-import { copyScales, type UseRef, type UseTarget } from './copies.js';
+import { CopyRecorder } from './copies.js';
 
 /** The SVG namespace URI. */
 export const SVG_NS = 'http://www.w3.org/2000/svg';
@@ -110,7 +110,6 @@ const NEVER_RENDERED = new Set<string>([
 const DISPLAY_NONE_STYLE = /(?:^|;)\s*display\s*:\s*none\s*(?:!important\s*)?(?:;|$)/i;
 const MAX_DEPTH = 1_000_000;
 const XML_NS = 'http://www.w3.org/XML/1998/namespace';
-const XLINK_NS = 'http://www.w3.org/1999/xlink';
 const ANCESTOR_LEVELS = 24;
 
 /**
@@ -142,13 +141,7 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
   const rootNs = Object.assign(Object.create(null) as Record<string, string>, { xml: XML_NS, '': '' });
   let depth = 0;
   let count = 0;
-  // Targets of <use> (the first element with each id) and the uses themselves.
-  const targets = new Map<string, UseTarget>();
-  const uses: UseRef[] = [];
-  const idAt: (string | null)[] = [];
-  // Every element's parent by document-order index (−1 for the root), and the open elements' indices.
-  const parentOf: number[] = [];
-  const indexAt: number[] = [];
+  const copies = new CopyRecorder();
   let noNamespaceIsSvg = false;
   let docRootToMm: Matrix = identityMatrix();
   let physical = false;
@@ -281,23 +274,7 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
         copyScale: 1,
       });
     }
-    parentOf[index] = depth > 0 ? indexAt[depth - 1] : -1;
-    indexAt[depth] = index;
-    idAt[depth] = null;
-    if (id !== null && !targets.has(id)) {
-      targets.set(id, { first: index, last: index, parentCtm: parentCtm ?? identityMatrix() });
-      idAt[depth] = id;
-    }
-    if (isSvg && local === 'use') {
-      // S2 §5.6: href, or xlink:href under any prefix bound to XLink; only references into this document.
-      let href = at.href;
-      if (href === undefined) for (const k in at) if (k.endsWith(':href') && ns[k.slice(0, -5)] === XLINK_NS) href = at[k];
-      const ref = href?.trim();
-      if (ref !== undefined && ref.startsWith('#') && ref.length > 1) {
-        const x = lengthToUser(at.x, w, 0), y = lengthToUser(at.y, h, 0);
-        uses.push({ index, target: ref.slice(1), placement: multiply(new Float64Array(6), ctm, matrix(1, 0, 0, 1, x, y)) });
-      }
-    }
+    copies.open(index, depth, isSvg ? local : null, id, at, ctm, parentCtm, ns, w, h);
     let forChildren = reason;
     if (forChildren === null) {
       if (!isSvg) forChildren = `inside <${label}> (not SVG)`;
@@ -317,8 +294,7 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
 
   parser.on('closetag', (tag: SaxesTagPlain) => {
     depth--;
-    const tid = idAt[depth];
-    if (tid !== null && tid !== undefined) targets.get(tid)!.last = count - 1;
+    copies.close(depth, count - 1);
     const g = geomAt[depth];
     if (g >= 0 && !tag.isSelfClosing) {
       const end = parser.position;
@@ -332,12 +308,12 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
     if (e instanceof SvgInputError) throw e;
     throw new SvgInputError(`XML error: ${(e as Error).message}`);
   }
-  const scales = copyScales(elements.map((e) => e.index), uses, targets, parentOf, docRootToMm);
+  const scales = copies.scales(elements.map((e) => e.index), docRootToMm);
   elements.forEach((e, i) => {
     e.copyScale = scales[i];
     if (!Number.isFinite(scales[i]) && e.rewritable) {
       e.rewritable = false;
-      e.reason = 'drawn again by <use> in a cycle or a chain of more than 16 (copies not bounded)';
+      e.reason = 'drawn again by <use> at a scale that cannot be bounded (a cycle of uses, a chain of more than 16, or a resized nested <svg>)';
     }
   });
   return { text, elements, rootToMm: docRootToMm, physicalSize: physical, warnings: [...guard.warnings, ...warnings] };

@@ -39,11 +39,20 @@ describe('copyScale: how much larger a <use> copy draws an element (S2 §5.6: th
     expect(scaleOf(`<svg ${NS}><g id="g"><path id="p" d="${ring(20, 20, 5)}"/><use href="#g" transform="scale(9)"/></g></svg>`, 'p')).toBe(1);
   });
 
+  it('a use that resizes a referenced nested <svg> (width, height) is not bounded: its content is left as written', () => {
+    const svg = `<svg ${NS}><svg id="s" width="50" height="50" viewBox="0 0 50 50"><path id="p" d="${ring(20, 20, 5)}"/></svg>` +
+      '<use href="#s" width="150" height="150"/></svg>';
+    const el = readSvg(svg, { assumedMmPerUnit: 1 }).elements.find((e) => e.id === 'p')!;
+    expect(el.rewritable).toBe(false);
+    // Without width and height the use keeps the viewport: a plain copy.
+    expect(scaleOf(svg.replace(' width="150" height="150"', ''), 'p')).toBeCloseTo(1, 12);
+  });
+
   it('a cycle through two uses is not bounded: the element is left as written, with the reason', () => {
     const svg = `<svg ${NS}><g id="a"><path id="p" d="${ring(20, 20, 5)}"/><use href="#b"/></g><g id="b"><use href="#a" transform="scale(2)"/></g></svg>`;
     const el = readSvg(svg, { assumedMmPerUnit: 1 }).elements.find((e) => e.id === 'p')!;
     expect(el.rewritable).toBe(false);
-    expect(el.reason).toMatch(/drawn again by <use> in a cycle/);
+    expect(el.reason).toMatch(/drawn again by <use> at a scale that cannot be bounded \(a cycle of uses/);
   });
 });
 
