@@ -28,6 +28,7 @@ import { emitSegments, type EmitContour, writtenArcErrorBound } from './write/em
 import { digitsForTolerance } from './write/numbers.js';
 import { applyEdits, editStartTag, type Edit } from './write/document.js';
 import { measureDeviation } from './report/measure.js';
+import { elementTag } from './report/table.js';
 import type { ElementReport, FileReport } from './report/types.js';
 import { VERSION } from './version.js';
 
@@ -105,9 +106,8 @@ function wigglySummary(elements: readonly ElementReport[], tol: number): string 
   if (over.length === 0) return null;
   const worst = over.reduce((w, e) => (e.segmentsAfter.arcs + e.segmentsAfter.lines - e.straightMovesNeeded > w.segmentsAfter.arcs + w.segmentsAfter.lines - w.straightMovesNeeded ? e : w));
   const rewritten = elements.filter((e) => !e.kept).length;
-  const tag = `<${worst.name}${worst.id ? ` id="${worst.id}"` : ''}> (element ${worst.index})`;
   return `${over.length} of ${rewritten} rewritten elements came out with more arcs and lines than the straight moves the original needs within ${+tol.toPrecision(6)} mm ` +
-    `(${tag}: ${worst.segmentsAfter.arcs + worst.segmentsAfter.lines} against ${worst.straightMovesNeeded}): the drawing wiggles by about the tolerance ` +
+    `(${elementTag(worst)}: ${worst.segmentsAfter.arcs + worst.segmentsAfter.lines} against ${worst.straightMovesNeeded}): the drawing wiggles by about the tolerance ` +
     '(a traced bitmap\'s pixel steps, for one), and a larger tolerance gives fewer, smoother pieces';
 }
 
@@ -157,18 +157,14 @@ interface ElementResult {
   edits: Edit[] | null;
 }
 
-function label(el: GeometryElement): string {
-  return `<${el.name}${el.id ? ` id="${el.id}"` : ''}> (element ${el.index})`;
-}
-
 function readGeometry(el: GeometryElement, warnings: string[]): ParsedPath | null {
   if (el.name === 'path') {
     const p = parsePathData(el.attrs.d ?? '');
-    if (p.error) warnings.push(`${label(el)}: path data error at offset ${p.error.offset}: ${p.error.message}; the part before it is kept`);
+    if (p.error) warnings.push(`${elementTag(el)}: path data error at offset ${p.error.offset}: ${p.error.message}; the part before it is kept`);
     return p;
   }
   const s = shapeToPath(el.name, (a) => el.attrs[a], el.viewportW, el.viewportH);
-  if (s.error) warnings.push(`${label(el)}: ${s.error}`);
+  if (s.error) warnings.push(`${elementTag(el)}: ${s.error}`);
   return s.path;
 }
 
@@ -309,8 +305,7 @@ function copiesSummary(doc: SvgDocument, tol: number): string | null {
   if (larger.length === 0) return null;
   const most = larger.reduce((a, b) => (b.copyScale > a.copyScale ? b : a));
   const k = +most.copyScale.toPrecision(3);
-  const tag = `<${most.name}${most.id ? ` id="${most.id}"` : ''}> (element ${most.index})`;
-  return `${larger.length} element${larger.length > 1 ? 's are' : ' is'} drawn again larger by <use> (up to ${k}×, ${tag}): ` +
+  return `${larger.length} element${larger.length > 1 ? 's are' : ' is'} drawn again larger by <use> (up to ${k}×, ${elementTag(most)}): ` +
     `each is fitted and measured where it stands within the tolerance over its factor (there ${+(tol / k).toPrecision(3)} mm), so every copy stays within ${+tol.toPrecision(6)} mm`;
 }
 

@@ -4,6 +4,7 @@
  * or per element kept because the tolerance could not be met.
  */
 import type { ElementReport, FileReport } from '../report/types.js';
+import { elementTag } from '../report/table.js';
 
 /** Colouring functions; identity when colour is off. */
 export interface Paint {
@@ -45,11 +46,6 @@ export function formatTolerance(v: number): string {
   return `${+v.toPrecision(6)} mm`;
 }
 
-/** `<path id="x"> (element 4)`: how a line names an element. */
-export function elementLabel(e: ElementReport): string {
-  return `<${e.name}${e.id ? ` id="${e.id}"` : ''}> (element ${e.index})`;
-}
-
 const plural = (n: number, one: string, many = `${one}s`): string => `${n} ${n === 1 ? one : many}`;
 
 /** Elements kept unchanged because their measured deviation is over the tolerance. */
@@ -85,7 +81,7 @@ export function problemLines(name: string, report: FileReport, paint: Paint = PL
   const out: string[] = [];
   for (const w of report.warnings) out.push(`${name}: ${paint.yellow('warning:')} ${w.replace(/\s*[\r\n]+\s*/g, ' ')}`);
   for (const e of overTolerance(report)) {
-    out.push(`${name}: ${paint.red('kept unchanged:')} ${elementLabel(e)}: ${e.keptReason ?? 'over the tolerance'}`);
+    out.push(`${name}: ${paint.red('kept unchanged:')} ${elementTag(e)}: ${e.keptReason ?? 'over the tolerance'}`);
   }
   return out;
 }

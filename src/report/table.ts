@@ -94,6 +94,11 @@ export function elementLabel(e: { id: string | null; name: string; index: number
   return e.id !== null && e.id !== '' ? e.id : `${e.name}#${e.index}`;
 }
 
+/** `<path id="a"> (element 3)`: an element as messages name it (the id when it has one; document order, root svg = 0). */
+export function elementTag(e: { id: string | null; name: string; index: number }): string {
+  return `<${e.name}${e.id ? ` id="${e.id}"` : ''}> (element ${e.index})`;
+}
+
 /** "L1874 M1 Z1": commands by kind, most frequent first (ties by letter). */
 export function commandsText(counts: Record<string, number>): string {
   return Object.entries(counts)
