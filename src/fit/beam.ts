@@ -152,12 +152,7 @@ function childNode(parent: Node, piece: Piece, piece2: Piece | null, b: number, 
 function storedNode(o: number, parent: Node, p: SearchParams): Node {
   const rec = store.rec;
   const b = rec[o + C_B];
-  const piece = pieceFrom(rec, o, rec[o + C_KIND], parent.a, b, parent.qx, parent.qy);
-  return {
-    a: b, qx: piece.x1, qy: piece.y1, bp: piece.mp, bq: piece.mq, br: piece.mr, tx: piece.tx, ty: piece.ty,
-    t0x: parent.t0x, t0y: parent.t0y, level: parent.level + 1, parent, piece, piece2: null, c0: 0, c1: 0,
-    reach: b, err: rec[o + C_ERR],
-  };
+  return childNode(parent, pieceFrom(rec, o, rec[o + C_KIND], parent.a, b, parent.qx, parent.qy), null, b, p);
 }
 
 /**
