@@ -25,14 +25,10 @@ import { join } from 'node:path';
 import { Writable } from 'node:stream';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
+import { contourPoints, rng } from './bigfile.js';
 
 const ROOT = fileURLToPath(new URL('..', import.meta.url));
 const TOLERANCE = '0.05mm';
-
-function rng(seed: number): () => number {
-  let s = seed >>> 0;
-  return () => ((s = (s * 1664525 + 1013904223) >>> 0) / 2 ** 32);
-}
 
 /** A 24 mm icon: a few circles and rounded rectangles as cubic Béziers, and a polyline. */
 function icon(rand: () => number): string {
@@ -58,19 +54,8 @@ function icon(rand: () => number): string {
 
 /** A traced drawing: closed smooth contours as dense polylines (about 0.5 MB). */
 function traced(rand: () => number, contours = 16, vertices = 2000): string {
-  const parts: string[] = [];
   const cols = Math.ceil(Math.sqrt(contours));
-  for (let c = 0; c < contours; c++) {
-    const cx = 30 + 60 * (c % cols), cy = 30 + 60 * Math.floor(c / cols);
-    const a1 = rand() * 4, a2 = rand() * 2, p1 = rand() * 6, p2 = rand() * 6;
-    const pts: string[] = [];
-    for (let i = 0; i < vertices; i++) {
-      const t = (2 * Math.PI * i) / vertices;
-      const r = 20 + a1 * Math.sin(3 * t + p1) + a2 * Math.cos(7 * t + p2);
-      pts.push(`${(cx + r * Math.cos(t)).toFixed(3)} ${(cy + r * Math.sin(t)).toFixed(3)}`);
-    }
-    parts.push(`<path d="M${pts.join(' L')}Z"/>`);
-  }
+  const parts = Array.from({ length: contours }, (_, c) => `<path d="M${contourPoints(rand, c, cols, vertices, 3)}Z"/>`);
   const size = 60 * cols;
   return `<svg xmlns="http://www.w3.org/2000/svg" width="${size}mm" height="${size}mm" viewBox="0 0 ${size} ${size}" fill="none" stroke="#000">\n${parts.join('\n')}\n</svg>\n`;
 }
