@@ -102,12 +102,13 @@ export interface ElementOutcome {
  * its pixel size), so arcs can only follow the wiggles; null when none did.
  */
 function wigglySummary(elements: readonly ElementReport[], tol: number): string | null {
-  const over = elements.filter((e) => !e.kept && e.segmentsAfter.arcs + e.segmentsAfter.lines > e.straightMovesNeeded);
+  const pieces = (e: ElementReport): number => e.segmentsAfter.arcs + e.segmentsAfter.lines;
+  const over = elements.filter((e) => !e.kept && pieces(e) > e.straightMovesNeeded);
   if (over.length === 0) return null;
-  const worst = over.reduce((w, e) => (e.segmentsAfter.arcs + e.segmentsAfter.lines - e.straightMovesNeeded > w.segmentsAfter.arcs + w.segmentsAfter.lines - w.straightMovesNeeded ? e : w));
+  const worst = over.reduce((w, e) => (pieces(e) - e.straightMovesNeeded > pieces(w) - w.straightMovesNeeded ? e : w));
   const rewritten = elements.filter((e) => !e.kept).length;
   return `${over.length} of ${rewritten} rewritten elements came out with more arcs and lines than the straight moves the original needs within ${+tol.toPrecision(6)} mm ` +
-    `(${elementTag(worst)}: ${worst.segmentsAfter.arcs + worst.segmentsAfter.lines} against ${worst.straightMovesNeeded}): the drawing wiggles by about the tolerance ` +
+    `(${elementTag(worst)}: ${pieces(worst)} against ${worst.straightMovesNeeded}): the drawing wiggles by about the tolerance ` +
     '(a traced bitmap\'s pixel steps, for one), and a larger tolerance gives fewer, smoother pieces';
 }
 

@@ -42,7 +42,7 @@ import { lengthToUser, mmPerPx } from './units.js';
 import { parsePreserveAspectRatio, parseViewBox, rootToMm, viewBoxTransform } from './viewport.js';
 import { errorAt, SvgInputError } from './errors.js';
 import { createEntityGuard, XML_LIMITS } from './xmlSafety.js';
-import { CopyRecorder } from './copies.js';
+import { CopyRecorder, MAX_CHAIN } from './copies.js';
 
 /** The SVG namespace URI. */
 export const SVG_NS = 'http://www.w3.org/2000/svg';
@@ -313,7 +313,7 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
     e.copyScale = scales[i];
     if (!Number.isFinite(scales[i]) && e.rewritable) {
       e.rewritable = false;
-      e.reason = 'drawn again by <use> at a scale that cannot be bounded (a cycle of uses, a chain of more than 16, or a resized nested <svg>)';
+      e.reason = `drawn again by <use> at a scale that cannot be bounded (a cycle of uses, a chain of more than ${MAX_CHAIN}, or a resized nested <svg>)`;
     }
   });
   return { text, elements, rootToMm: docRootToMm, physicalSize: physical, warnings: [...guard.warnings, ...warnings] };
