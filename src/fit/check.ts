@@ -1,16 +1,17 @@
 /**
  * Does one candidate piece stay inside the tolerance band of the vertices it
- * stands for? Scalar arguments, no allocation: this is the fitter's inner loop.
+ * stands for? No allocation: this is the fitter's inner loop (the `…In` forms
+ * take their numbers in an argument block).
  *
  * A piece passes when every vertex k in [a, b] lies within `tol` of the piece
  * (and, for an arc, inside its angular sector or within `tol` of an end), no
- * edge between them dips further than `tol` inside the circle, and the arc is no
+ * edge between them dips further than `tol` inside the circle, the arc is no
  * longer than the vertex path allows (so the path runs along all of it rather
  * than sitting at its ends), and, on a small circle or for more than half a
  * turn, the path turns about the centre the way the arc does (so it cannot
- * take the short way round while the arc goes the long way). The vertex path then runs continuously through the
- * sector from one end to the other, so every point of the piece is within `tol`
- * of the path too (two-sided).
+ * take the short way round while the arc goes the long way). The vertex path
+ * then runs continuously through the sector from one end to the other, so
+ * every point of the piece is within `tol` of the path too (two-sided).
  */
 
 
