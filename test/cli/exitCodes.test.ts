@@ -8,7 +8,7 @@ import { existsSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { RefitResult } from '../../src/refit.js';
 import { EXIT_INTERNAL, EXIT_TOLERANCE } from '../../src/cli/exitCodes.js';
-import { run, scratch } from './helpers.js';
+import { run, scratch, SMALL } from './helpers.js';
 
 const hook = vi.hoisted(() => ({ after: null as null | ((r: RefitResult) => RefitResult) }));
 vi.mock('../../src/refit.js', async (importOriginal) => {
@@ -22,10 +22,6 @@ vi.mock('../../src/refit.js', async (importOriginal) => {
   };
 });
 
-const SMALL = `<svg xmlns="http://www.w3.org/2000/svg" width="100mm" height="100mm" viewBox="0 0 100 100">
-<path id="c" d="M90 50C90 72.09 72.09 90 50 90C27.91 90 10 72.09 10 50C10 27.91 27.91 10 50 10C72.09 10 90 27.91 90 50Z"/>
-</svg>
-`;
 
 let dir = '';
 let cleanup = (): void => undefined;

@@ -51,6 +51,12 @@ export function scratch(): { dir: string; cleanup: () => void } {
 }
 
 /** Keys of FileReport and of its parts, as declared in src/report/types.ts. */
+/** A small file with curves: a circle drawn as four cubic Béziers, 100 mm wide (our own test data). */
+export const SMALL = `<svg xmlns="http://www.w3.org/2000/svg" width="100mm" height="100mm" viewBox="0 0 100 100">
+<path id="c" d="M90 50C90 72.09 72.09 90 50 90C27.91 90 10 72.09 10 50C10 27.91 27.91 10 50 10C72.09 10 90 27.91 90 50Z"/>
+</svg>
+`;
+
 export const FILE_REPORT_KEYS = ['tool', 'version', 'file', 'toleranceMm', 'bytesIn', 'bytesOut', 'timeMs', 'elements', 'totals', 'warnings'] as const;
 export const TOTALS_KEYS = ['elements', 'rewritten', 'kept', 'commandsBefore', 'segmentsAfter', 'maxDeviation', 'withinTolerance'] as const;
 export const ELEMENT_KEYS = ['index', 'name', 'id', 'ancestors', 'commandsBefore', 'straightMovesNeeded', 'segmentsAfter', 'deviation', 'kept', 'keptReason'] as const;

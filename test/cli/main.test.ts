@@ -7,15 +7,10 @@ import { SAFETY_CAUTION } from '../../src/cli/help.js';
 import { DEFAULT_OPTIONS } from '../../src/options.js';
 import { refitSvg } from '../../src/refit.js';
 import type { FileReport } from '../../src/report/types.js';
-import { DEVIATION_KEYS, ELEMENT_KEYS, FILE_REPORT_KEYS, TOTALS_KEYS, run, scratch } from './helpers.js';
+import { DEVIATION_KEYS, ELEMENT_KEYS, FILE_REPORT_KEYS, run, scratch, SMALL, TOTALS_KEYS } from './helpers.js';
 
 const BRACKET_PATH = new URL('../../samples/bracket.svg', import.meta.url).pathname;
 const BRACKET = readFileSync(BRACKET_PATH, 'utf8');
-/** A small file with curves: a circle drawn as four cubic Béziers, 100 mm wide. */
-const SMALL = `<svg xmlns="http://www.w3.org/2000/svg" width="100mm" height="100mm" viewBox="0 0 100 100">
-<path id="c" d="M90 50C90 72.09 72.09 90 50 90C27.91 90 10 72.09 10 50C10 27.91 27.91 10 50 10C72.09 10 90 27.91 90 50Z"/>
-</svg>
-`;
 
 /** Well-formedness checked by saxes, a general-purpose XML parser, independently of our reader. */
 function wellFormed(xml: string): boolean {

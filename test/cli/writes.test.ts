@@ -4,14 +4,9 @@ import { existsSync, readFileSync, readdirSync, statSync, writeFileSync, symlink
 import { join } from 'node:path';
 import { EXIT_OK, EXIT_USAGE } from '../../src/cli/main.js';
 import { refitSvg } from '../../src/refit.js';
-import { run, scratch } from './helpers.js';
+import { run, scratch, SMALL } from './helpers.js';
 
 const BRACKET_PATH = new URL('../../samples/bracket.svg', import.meta.url).pathname;
-/** A small file with curves: a circle drawn as four cubic Béziers, 100 mm wide. */
-const SMALL = `<svg xmlns="http://www.w3.org/2000/svg" width="100mm" height="100mm" viewBox="0 0 100 100">
-<path id="c" d="M90 50C90 72.09 72.09 90 50 90C27.91 90 10 72.09 10 50C10 27.91 27.91 10 50 10C72.09 10 90 27.91 90 50Z"/>
-</svg>
-`;
 
 let dir = '';
 let cleanup = (): void => undefined;
