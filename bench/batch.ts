@@ -26,6 +26,7 @@ import { Writable } from 'node:stream';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import { contourPoints, rng } from './bigfile.js';
+import { DEFAULT_WORKER_MEMORY_MB } from '../src/cli/pool.js';
 
 const ROOT = fileURLToPath(new URL('..', import.meta.url));
 const TOLERANCE = '0.05mm';
@@ -131,10 +132,10 @@ function threadCpu(): Map<string, number> {
 /** One pass's time and CPU: the busiest thread (the worker's own) and all other threads (V8's compiler and GC helpers, this thread). */
 interface Pass { s: number; worker: number; others: number }
 
-/** One fresh worker thread's first and second pass over `files` (the first includes bringing its code up to speed). */
+/** One fresh worker thread (started as the batch pool starts one) and its first and second pass over `files` (the first includes bringing its code up to speed). */
 async function warmUp(files: readonly string[]): Promise<[Pass, Pass]> {
   const url = new URL('../dist/src/cli/worker.js', import.meta.url);
-  const w = new Worker(url, { workerData: { arcsplineWorker: true, options: { tolerance: Number.parseFloat(TOLERANCE) } }, resourceLimits: { maxOldGenerationSizeMb: 1024 } });
+  const w = new Worker(url, { workerData: { arcsplineWorker: true, options: { tolerance: Number.parseFloat(TOLERANCE) } }, resourceLimits: { maxOldGenerationSizeMb: DEFAULT_WORKER_MEMORY_MB } });
   const pass = async (): Promise<Pass> => {
     const c0 = threadCpu();
     const t0 = performance.now();
