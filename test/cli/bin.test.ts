@@ -3,7 +3,7 @@
  * process, in the exact form the acceptance harness uses.
  */
 import { beforeAll, describe, expect, it } from 'vitest';
-import { execFileSync, spawnSync } from 'node:child_process';
+import { execFileSync, spawn, spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, readdirSync, rmSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -47,5 +47,16 @@ describe('bin/arcspline.js', () => {
     } finally {
       rmSync(dir, { recursive: true, force: true });
     }
+  });
+
+  it('a reader that closes the pipe early (--help | head) ends it quietly with exit code 0', async () => {
+    // Common practice for shell tools: a closed standard output is no error when only help text was going there.
+    const child = spawn(process.execPath, [BIN, '--help'], { stdio: ['ignore', 'pipe', 'pipe'] });
+    child.stdout.destroy();
+    let stderr = '';
+    child.stderr.on('data', (b: Buffer) => void (stderr += b.toString()));
+    const code = await new Promise<number | null>((resolve) => child.on('close', resolve));
+    expect(stderr).toBe('');
+    expect(code).toBe(0);
   });
 });
