@@ -26,7 +26,7 @@ import { Writable } from 'node:stream';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import { contourPoints, rng } from './bigfile.js';
-import { DEFAULT_WORKER_MEMORY_MB } from '../src/cli/pool.js';
+import { DEFAULT_WORKER_MEMORY_MB } from '../src/workerPool.js';
 
 const ROOT = fileURLToPath(new URL('..', import.meta.url));
 const TOLERANCE = '0.05mm';
@@ -134,15 +134,16 @@ interface Pass { s: number; worker: number; others: number }
 
 /** One fresh worker thread (started as the batch pool starts one) and its first and second pass over `files` (the first includes bringing its code up to speed). */
 async function warmUp(files: readonly string[]): Promise<[Pass, Pass]> {
-  const url = new URL('../dist/src/cli/worker.js', import.meta.url);
-  const w = new Worker(url, { workerData: { arcsplineWorker: true, options: { tolerance: Number.parseFloat(TOLERANCE) } }, resourceLimits: { maxOldGenerationSizeMb: DEFAULT_WORKER_MEMORY_MB } });
+  const url = new URL('../dist/src/refitWorker.js', import.meta.url);
+  const options = { tolerance: Number.parseFloat(TOLERANCE) };
+  const w = new Worker(url, { workerData: { arcsplineWorker: true }, resourceLimits: { maxOldGenerationSizeMb: DEFAULT_WORKER_MEMORY_MB } });
   const pass = async (): Promise<Pass> => {
     const c0 = threadCpu();
     const t0 = performance.now();
     for (let id = 0; id < files.length; id++) {
       await new Promise<void>((resolve) => {
         w.once('message', () => resolve());
-        w.postMessage({ id, path: files[id], wantOriginal: false });
+        w.postMessage({ kind: 'file', id, path: files[id], name: files[id], outName: null, wantOriginal: false, threads: 1, wantText: false, options });
       });
     }
     const s = (performance.now() - t0) / 1000;

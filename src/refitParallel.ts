@@ -5,13 +5,12 @@
  * order, exactly as `refitSvg` would (same text, same report). Elements are
  * independent: each is fitted and measured on its own.
  *
- * Where no compiled worker exists (TypeScript sources under a test runner) or
- * one thread is asked for, it runs in this thread.
+ * The threads are those of the one worker system (./workerPool.ts). Where no
+ * compiled worker exists (TypeScript sources under a test runner) or one
+ * thread is asked for, it runs in this thread.
  */
-import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
-import { fileURLToPath } from 'node:url';
-import { Worker } from 'node:worker_threads';
+import { compiledWorkerUrl, ThreadPool } from './workerPool.js';
 import { resolveOptions, type Options } from './options.js';
 import { readSvg, type GeometryElement } from './svg/document.js';
 import { assemble, emptyTimes, refitOne, refitSvg, type ElementOutcome, type RefitResult, type StageTimes } from './refit.js';
@@ -33,9 +32,9 @@ export function parallelMinChars(threads: number): number {
   return threads < 2 ? Infinity : (WARM_UP_CHARS * threads) / (threads - 1);
 }
 
-/** The message a worker gets, and what it answers. */
+/** The task a worker gets (./refitWorker.ts), and what it answers. */
 export interface ElementJob {
-  kind: 'arcspline-elements';
+  kind: 'elements';
   text: string;
   rootToMm: Float64Array;
   elements: GeometryElement[];
@@ -46,28 +45,16 @@ export interface ElementJobResult {
   times: StageTimes;
 }
 
-function workerUrl(): URL | null {
-  if (!import.meta.url.endsWith('.js')) return null;
-  const url = new URL('./refitWorker.js', import.meta.url);
-  return existsSync(fileURLToPath(url)) ? url : null;
-}
-
 function weight(el: GeometryElement): number {
   return (el.attrs.d ?? el.attrs.points ?? '').length + 64;
 }
 
-function runWorker(url: URL, job: ElementJob): Promise<ElementJobResult> {
-  return new Promise((resolve, reject) => {
-    const w = new Worker(url, { workerData: job });
-    w.once('message', (m: ElementJobResult) => {
-      resolve(m);
-      void w.terminate();
-    });
-    w.once('error', reject);
-    w.once('exit', (code) => {
-      if (code !== 0) reject(new Error(`refit worker stopped with code ${code}`));
-    });
-  });
+/** Refit a share of a document's elements (the worker's side of an ElementJob; also callable in-process). */
+export function refitElements(job: ElementJob): ElementJobResult {
+  const times = emptyTimes();
+  const doc = { text: job.text, rootToMm: job.rootToMm };
+  const outcomes = job.elements.map((el) => refitOne(doc, el, job.opts, times));
+  return { outcomes, times };
 }
 
 /**
@@ -79,7 +66,7 @@ export async function refitSvgParallel(
   text: string, partial: Partial<Options> = {}, file: string | null = null, jobs = availableParallelism(),
   minChars = parallelMinChars(jobs),
 ): Promise<RefitResult> {
-  const url = workerUrl();
+  const url = compiledWorkerUrl();
   // Small documents, one thread, or no compiled worker: exactly the one-thread call.
   if (!url || jobs < 2 || text.length < minChars) return refitSvg(text, partial, file);
   const t0 = performance.now();
@@ -103,9 +90,22 @@ export async function refitSvgParallel(
     bins[k].push(el);
     load[k] += weight(el);
   }
-  const pending = bins.slice(1).map((b) => runWorker(url, { kind: 'arcspline-elements', text, rootToMm: doc.rootToMm, elements: b, opts }));
-  const mine = bins[0].map((el) => refitOne(doc, el, opts, times));
-  const results = await Promise.all(pending);
+  // No heap limit here: each thread holds the whole document text, and its size is the caller's choice.
+  const pool = new ThreadPool(url, threads - 1);
+  let results: ElementJobResult[];
+  let mine: ElementOutcome[];
+  try {
+    const pending = bins.slice(1).map((b) => {
+      const job: ElementJob = { kind: 'elements', text, rootToMm: doc.rootToMm, elements: b, opts };
+      return pool.run<ElementJobResult>(job);
+    });
+    // A failed share must not leave the others' rejections unhandled while this thread works.
+    for (const p of pending) p.catch(() => undefined);
+    mine = bins[0].map((el) => refitOne(doc, el, opts, times));
+    results = await Promise.all(pending);
+  } finally {
+    await pool.close();
+  }
   const byIndex = new Map<number, ElementOutcome>();
   for (const o of mine) byIndex.set(o.index, o);
   for (const r of results) {

@@ -8,7 +8,7 @@ import { Command, InvalidArgumentError, Option } from 'commander';
 import { DEFAULT_OPTIONS, OPTION_DOCS, OptionError, parseToleranceText, resolveOptions, type Options } from '../options.js';
 import { availableParallelism } from 'node:os';
 import { VERSION } from '../version.js';
-import { DEFAULT_WORKER_MEMORY_MB } from './pool.js';
+import { DEFAULT_WORKER_MEMORY_MB } from '../workerPool.js';
 
 /** The flag that sets each library option (every option has exactly one). */
 export const OPTION_FLAGS: Readonly<Record<keyof Options, string>> = Object.freeze({
@@ -165,7 +165,7 @@ export function buildProgram(out: ProgramOutput, afterHelp: string): Command {
   program
     .option('--table', 'print a table of every element (commands before, pieces after, measured deviation) on standard error')
     .option('--preview <file.png>', 'draw the original (grey) and the result (arcs and lines in colour, knots, worst spots, a mm scale) into a PNG (one file only)')
-    .option('--in-place', 'rewrite each input file itself, keeping a backup FILE.bak')
+    .option('--in-place', 'rewrite each input file itself, keeping a backup FILE.bak (an existing FILE.bak is kept: it holds the original from the first rewrite)')
     .option('--no-backup', 'with --in-place, keep no FILE.bak')
     .option('-q, --quiet', 'print no summary line, table or progress bar (warnings and errors still go to standard error)')
     .option('--debug', 'print the stack of an internal error')

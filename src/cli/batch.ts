@@ -13,26 +13,22 @@
  * last and leave the other cores idle (longest-processing-time-first
  * scheduling, common practice).
  */
-import { mkdir } from 'node:fs/promises';
 import { availableParallelism } from 'node:os';
-import { dirname } from 'node:path';
 import type { Writable } from 'node:stream';
-import { OptionError, resolveOptions, type Options } from '../options.js';
-import { SvgInputError } from '../svg/errors.js';
+import { resolveOptions, type Options } from '../options.js';
 import { addReport, batchTable, newTotals } from './batchSummary.js';
-import { EXIT_INTERNAL, EXIT_INTERRUPTED, EXIT_OK, EXIT_TOLERANCE, EXIT_USAGE, UsageError } from './exitCodes.js';
+import { EXIT_INTERRUPTED, EXIT_OK, EXIT_USAGE, UsageError } from './exitCodes.js';
+import { failure, fileExitCode, fileLines, needsBackup, writeFileResult, type FileOutcome, type FileTargets } from './fileJob.js';
 import { expandInputs } from './inputs.js';
-import { exists, stageFile, type StagedFile } from './io.js';
 import { planJobs, type Job } from './plan.js';
-import { compiledWorkerUrl, DEFAULT_WORKER_MEMORY_MB, HEAP_BYTES_PER_INPUT_BYTE, InProcessRunner, WorkerPool, type TaskRunner } from './pool.js';
+import { DEFAULT_WORKER_MEMORY_MB, fileRunner, HEAP_BYTES_PER_INPUT_BYTE } from './runner.js';
 import { Progress, progressWanted } from './progress.js';
 import { failedLine, ReportLineSink } from './reportLines.js';
-import { choosePaint, formatBytes, problemLines, summaryLine } from './summary.js';
-import type { FileDone, FileOutcome } from './worker.js';
+import { choosePaint, formatBytes } from './summary.js';
 import type { CliFlags } from './args.js';
 
 /** The command-line flags a batch uses (`output` is the output directory; undefined with `inPlace`). */
-export type BatchFlags = Pick<CliFlags, 'output' | 'inPlace' | 'backup' | 'quiet' | 'debug' | 'reportLines' | 'jobs' | 'workerMemoryMb'>;
+export type BatchFlags = Pick<CliFlags, 'output' | 'inPlace' | 'backup' | 'quiet' | 'debug' | 'reportLines' | 'jobs' | 'workerMemoryMb' | 'table'>;
 
 /** Streams and environment of a batch. */
 export interface BatchIo {
@@ -72,8 +68,7 @@ export async function runBatch(inputs: readonly string[], flags: BatchFlags, opt
   const order = jobs.map((j, i) => ({ j, i })).sort((a, b) => b.j.file.size - a.j.file.size || a.i - b.i).map((x) => x.j);
   const memoryMb = flags.workerMemoryMb ?? DEFAULT_WORKER_MEMORY_MB;
   const width = Math.min(flags.jobs ?? availableParallelism(), jobs.length);
-  const url = io.inProcess ? null : compiledWorkerUrl();
-  const runner: TaskRunner = url ? new WorkerPool(url, width, options, memoryMb) : new InProcessRunner(options);
+  const runner = fileRunner(width, memoryMb, io.inProcess);
   const maxBytes = runner.threaded ? Math.floor((memoryMb * 1024 * 1024) / HEAP_BYTES_PER_INPUT_BYTE) : Infinity;
 
   const lines = flags.reportLines === undefined ? null : await ReportLineSink.open(flags.reportLines, io.stdout);
@@ -102,21 +97,24 @@ export async function runBatch(inputs: readonly string[], flags: BatchFlags, opt
   const handle = async (job: Job, id: number): Promise<void> => {
     const path = job.file.path;
     progress.started(path);
+    const targets: FileTargets = flags.inPlace
+      ? { svg: { to: 'in-place', path, backup: flags.backup } }
+      : { svg: { to: 'file', path: job.out, mkdir: true } };
     let outcome: FileOutcome;
     if (job.file.size > maxBytes) {
       outcome = { id, ok: false, exitCode: EXIT_USAGE, message: `${path}: ${formatBytes(job.file.size)} is too large for the per-worker memory limit of ${memoryMb} MB (files up to ${formatBytes(maxBytes)}; raise --worker-memory)` };
-    } else if (flags.inPlace && flags.backup && (await exists(`${path}.bak`))) {
-      outcome = { id, ok: false, exitCode: EXIT_USAGE, message: `${path}.bak exists already; remove it, or give --no-backup` };
     } else {
-      outcome = await runner.run({ id, path, wantOriginal: flags.inPlace && flags.backup });
+      outcome = await runner.run({
+        kind: 'file', id, path, name: path, outName: flags.inPlace ? null : job.out,
+        wantOriginal: await needsBackup(targets), threads: 1, wantText: false, options,
+      });
     }
     if (stopped) return;
     if (outcome.ok) {
       try {
-        if (!(await writeResult(job, outcome, flags, () => stopped))) return;
+        if (!(await writeFileResult(outcome, targets, io.stdout, () => stopped))) return;
       } catch (e) {
-        const user = e instanceof UsageError || e instanceof SvgInputError || e instanceof OptionError;
-        outcome = { id, ok: false, exitCode: user ? EXIT_USAGE : EXIT_INTERNAL, message: user ? (e as Error).message : `${path}: internal error: ${(e as Error).message}`, stack: (e as Error).stack };
+        outcome = failure({ id, name: path }, e);
       }
     }
     finished++;
@@ -125,9 +123,8 @@ export async function runBatch(inputs: readonly string[], flags: BatchFlags, opt
     } else {
       const r = outcome.report;
       addReport(totals, path, r, outcome.changed);
-      if (!bar && !flags.quiet) progress.log(summaryLine(path, r, paint));
-      for (const l of problemLines(path, r, paint)) progress.log(l);
-      if (!r.totals.withinTolerance) code = Math.max(code, EXIT_TOLERANCE);
+      for (const l of fileLines(path, r, { summary: !bar && !flags.quiet, table: flags.table && !flags.quiet, paint })) progress.log(l);
+      code = Math.max(code, fileExitCode(r));
       void lines?.write(r);
     }
     progress.finished(job.file.size);
@@ -158,35 +155,4 @@ export async function runBatch(inputs: readonly string[], flags: BatchFlags, opt
     return EXIT_INTERRUPTED;
   }
   return code;
-}
-
-/**
- * Stage every file of one result, then rename them all (backup first); if the
- * batch was interrupted in between, remove the temporaries and write nothing.
- * @returns false when interrupted
- */
-async function writeResult(job: Job, r: FileDone, flags: BatchFlags, interrupted: () => boolean): Promise<boolean> {
-  const staged: StagedFile[] = [];
-  try {
-    if (flags.inPlace) {
-      // An input that needs no change is not rewritten in place (as for a single file).
-      if (!r.changed) return true;
-      if (flags.backup) {
-        const bak = `${job.file.path}.bak`;
-        if (await exists(bak)) throw new UsageError(`${bak} exists already; remove it, or give --no-backup`);
-        // Never an empty backup: the worker was asked for the bytes it read.
-        if (r.original === null) throw new Error(`no original bytes for the backup of ${job.file.path}`);
-        staged.push(await stageFile(bak, r.original));
-      }
-      staged.push(await stageFile(job.out, r.text));
-    } else {
-      await mkdir(dirname(job.out), { recursive: true }).catch(() => undefined);
-      staged.push(await stageFile(job.out, r.text));
-    }
-    if (interrupted()) return false;
-    for (const s of staged) await s.commit();
-    return true;
-  } finally {
-    for (const s of staged) await s.abort();
-  }
 }

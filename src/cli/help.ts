@@ -37,7 +37,7 @@ export function afterHelpText(width: number): string {
     '',
     'Output:',
     p('-o FILE writes the refitted SVG to FILE; -o - writes it to standard output. Without -o the SVG goes to standard output when that is not a terminal; on a terminal arcspline refuses and asks for -o.'),
-    p('Files are written atomically (a temporary file in the same directory, then renamed), so an error never leaves a partial or new output file. An existing output file is replaced, but never the input: -o naming the input is refused; use --in-place, which keeps the original as FILE.bak (refused when FILE.bak exists) unless --no-backup. An input that needs no change is not rewritten in place.'),
+    p('Files are written atomically (a temporary file in the same directory, then renamed), so an error never leaves a partial or new output file. An existing output file is replaced, but never the input: -o naming the input is refused; use --in-place, which keeps the original as FILE.bak unless --no-backup. An existing FILE.bak is kept as it is, so it holds the file from before arcspline first rewrote it (a repeated run refits the already refitted file again; arcspline measure FILE.bak FILE shows the total deviation). An input that needs no change is not rewritten in place.'),
     p('--report FILE writes the report (JSON) with the measured deviation of every element; --report - writes it to standard output, and the SVG must then go to a file with -o.'),
     p('A summary line per file and any warnings go to standard error.'),
     '',

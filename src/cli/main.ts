@@ -6,12 +6,11 @@
  * path (./batch.ts). The geometry work is the pure `refitSvg` (src/refit.ts).
  */
 import { stat } from 'node:fs/promises';
+import { availableParallelism } from 'node:os';
 import { resolve as resolvePath } from 'node:path';
 import type { Readable, Writable } from 'node:stream';
 import { CommanderError } from 'commander';
 import { OptionError, resolveOptions, type Options } from '../options.js';
-import { refitSvgParallel } from '../refitParallel.js';
-import { formatTable } from '../report/table.js';
 import { measureMain } from './measureMain.js';
 import { SvgInputError } from '../svg/errors.js';
 import { buildProgram, parsedArgs, type CliFlags, type ParsedArgs } from './args.js';
@@ -20,8 +19,9 @@ import { runBatch } from './batch.js';
 import { isGlobPattern } from './inputs.js';
 import { failedLine, ReportLineSink } from './reportLines.js';
 import { afterHelpText } from './help.js';
-import { asUsageError, decodeSvgBytes, encodeLike, exists, readInputBytes, sameFile, stageFile, writeToStream, type StagedFile } from './io.js';
-import { choosePaint, PLAIN, problemLines, summaryLine, type Paint } from './summary.js';
+import { readInputBytes, sameFile } from './io.js';
+import { fileExitCode, fileLines, isUserError, needsBackup, refitFileTask, writeFileResult, type FileTargets, type FileTask } from './fileJob.js';
+import { choosePaint, type Paint } from './summary.js';
 
 export { EXIT_INTERNAL, EXIT_INTERRUPTED, EXIT_OK, EXIT_TOLERANCE, EXIT_USAGE } from './exitCodes.js';
 
@@ -111,10 +111,6 @@ export async function main(argv: string[], io: Io = processIo()): Promise<number
     }
     return internal(e, args.flags.debug, err);
   }
-}
-
-function isUserError(e: unknown): e is Error {
-  return e instanceof UsageError || e instanceof SvgInputError || e instanceof OptionError;
 }
 
 function userMessage(e: Error, input: string | null): string {
@@ -230,52 +226,31 @@ async function batchCommand(args: ParsedArgs, options: Partial<Options>, io: Io)
   }
 }
 
-/** Read, refit and write one input; returns EXIT_OK or EXIT_TOLERANCE. Throws user errors. */
+/** Read, refit and write one input (the file job, ./fileJob.ts); returns EXIT_OK or EXIT_TOLERANCE. Throws user errors. */
 async function refitFile(input: string, flags: CliFlags, options: Partial<Options>, io: Io, paint: Paint, lines: ReportLineSink | null): Promise<number> {
   const name = displayName(input);
-  const bytes = await readInputBytes(input === STDIO ? null : input, io.stdin, name, resolveOptions(options).maxInputBytes);
-  const text = decodeSvgBytes(bytes, name);
-  // One file: its elements are shared out over the cores (a batch shares out files instead).
-  const result = await refitSvgParallel(text, options, input === STDIO ? null : input, flags.jobs);
-  const reportJson = `${JSON.stringify(result.report, null, 2)}\n`;
-  const changed = result.text !== text;
-
-  // Stage every file first, then rename them all: an error before the renames leaves no new file behind.
-  const staged: StagedFile[] = [];
-  try {
-    if (flags.inPlace) {
-      if (changed) {
-        if (flags.backup) {
-          const bak = `${input}.bak`;
-          if (await exists(bak)) throw new UsageError(`${bak} exists already; remove it, or give --no-backup`);
-          staged.push(await stageFile(bak, bytes));
-        }
-        staged.push(await stageFile(input, encodeLike(result.text, bytes)));
-      }
-    } else if (flags.output !== undefined && flags.output !== STDIO) {
-      staged.push(await stageFile(flags.output, encodeLike(result.text, bytes)));
-    }
-    if (flags.report !== undefined && flags.report !== STDIO) staged.push(await stageFile(flags.report, reportJson));
-    for (const s of staged) await s.commit();
-  } finally {
-    for (const s of staged) await s.abort();
-  }
-  const svgToStdout = !flags.inPlace && (flags.output === undefined || flags.output === STDIO);
-  try {
-    if (svgToStdout) await writeToStream(io.stdout, encodeLike(result.text, bytes));
-    if (flags.report === STDIO) await writeToStream(io.stdout, reportJson);
-  } catch (e) {
-    asUsageError(e, 'write', 'standard output');
-  }
-  const err = (line: string): void => void io.stderr.write(`${line}\n`);
-  if (flags.preview !== undefined) {
+  const path = input === STDIO ? null : input;
+  const targets: FileTargets = {
+    svg: flags.inPlace ? { to: 'in-place', path: input, backup: flags.backup }
+      : flags.output !== undefined && flags.output !== STDIO ? { to: 'file', path: flags.output } : { to: 'stdout' },
+    report: flags.report,
+  };
+  const task: FileTask = {
+    kind: 'file', id: 0, path, name, outName: targets.svg.to === 'file' ? targets.svg.path : null,
+    wantOriginal: await needsBackup(targets),
+    // One file: its elements are shared out over the cores (a batch shares out files instead).
+    threads: flags.jobs ?? availableParallelism(),
+    wantText: flags.preview !== undefined, options,
+  };
+  const stdin = path === null ? await readInputBytes(null, io.stdin, name, resolveOptions(options).maxInputBytes) : undefined;
+  const done = await refitFileTask(task, stdin);
+  await writeFileResult(done, targets, io.stdout);
+  if (flags.preview !== undefined && done.text !== null) {
     // Loaded only when asked for: the image library's native code takes longer to load than a small file takes to refit.
     const { writePreview } = await import('./previewCommand.js');
-    await writePreview(text, result.text, flags.preview, { report: result.report });
+    await writePreview(done.text.before, done.text.after, flags.preview, { report: done.report });
   }
-  if (!flags.quiet) err(summaryLine(name, result.report, paint));
-  if (flags.table && !flags.quiet) err(formatTable(result.report, { color: paint !== PLAIN, width: 100 }).trimEnd());
-  for (const line of problemLines(name, result.report, paint)) err(line);
-  await lines?.write(result.report);
-  return result.report.totals.withinTolerance ? EXIT_OK : EXIT_TOLERANCE;
+  for (const line of fileLines(name, done.report, { summary: !flags.quiet, table: flags.table && !flags.quiet, paint })) io.stderr.write(`${line}\n`);
+  await lines?.write(done.report);
+  return fileExitCode(done.report);
 }

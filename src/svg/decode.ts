@@ -9,10 +9,15 @@
  * encoding, which is refused with a clear message (no guessing: a wrong guess
  * would corrupt text silently).
  *
+ * A gzip stream (an `.svgz` file) is inflated first by {@link readSvgBytes},
+ * which also reports the form (encoding, gzip) for writing back alike.
+ *
  * The byte-order mark is kept in the string as U+FEFF (saxes skips it and the
  * reader's offsets count it), so an unchanged UTF-8 document is written back
  * byte for byte.
  */
+import { gunzipSync, gzipSync } from 'node:zlib';
+import { DEFAULT_OPTIONS } from '../options.js';
 import { SvgInputError } from './errors.js';
 
 /** What {@link detectSvgEncoding} found. */
@@ -68,3 +73,54 @@ export function decodeSvgBytes(buf: Uint8Array): string {
   }
 }
 
+
+/** How a document's bytes were stored: the text encoding, and whether gzip wrapped them (`.svgz`). */
+export interface SvgByteForm {
+  encoding: DetectedEncoding['encoding'];
+  /** The bytes were a gzip stream (RFC 1952), as in `.svgz` files. */
+  gzip: boolean;
+}
+
+/** Whether bytes start with the gzip magic number 1F 8B (RFC 1952 §2.3.1). */
+export function isGzip(buf: Uint8Array): boolean {
+  return buf.length >= 2 && buf[0] === 0x1f && buf[1] === 0x8b;
+}
+
+/**
+ * Decode SVG file bytes and say how they were stored, so the result can be
+ * written back the same way ({@link encodeSvgText}). Gzip is inflated first
+ * (node:zlib, part of Node, no native add-on), refusing more than `maxBytes`
+ * inflated bytes, so a small compressed file cannot fill the memory.
+ * @param maxBytes largest inflated size accepted, bytes (default: the library's maxInputBytes)
+ * @throws SvgInputError for a broken gzip stream, an inflated size over `maxBytes`, or bytes {@link decodeSvgBytes} refuses
+ */
+export function readSvgBytes(buf: Uint8Array, maxBytes: number = DEFAULT_OPTIONS.maxInputBytes): { text: string; form: SvgByteForm } {
+  let bytes = buf;
+  const gzip = isGzip(buf);
+  if (gzip) {
+    try {
+      bytes = gunzipSync(buf, { maxOutputLength: maxBytes });
+    } catch (e) {
+      if ((e as { code?: string }).code === 'ERR_BUFFER_TOO_LARGE') {
+        throw new SvgInputError(`the gzip data inflates to more than the input limit of ${(maxBytes / 2 ** 20).toFixed(1)} MB; raise it with --max-input <MB> if the machine has the memory`);
+      }
+      throw new SvgInputError(`not a readable gzip stream (${(e as Error).message})`);
+    }
+  }
+  const text = decodeSvgBytes(bytes);
+  return { text, form: { encoding: detectSvgEncoding(bytes).encoding, gzip } };
+}
+
+/**
+ * The inverse of {@link readSvgBytes}: text (with any byte-order mark it kept)
+ * in the given encoding, gzipped when the form says so.
+ */
+export function encodeSvgText(text: string, form: SvgByteForm): Uint8Array {
+  let out: Buffer;
+  if (form.encoding === 'utf-8') out = Buffer.from(text, 'utf8');
+  else {
+    out = Buffer.from(text, 'utf16le');
+    if (form.encoding === 'utf-16be') out.swap16();
+  }
+  return form.gzip ? gzipSync(out) : out;
+}

@@ -66,21 +66,25 @@ describe('batch in-process', () => {
     expect(readFileSync(at('in', 'a.svg'), 'utf8')).toBe(circle(30));
   });
 
-  it('--in-place on a directory keeps FILE.bak; a second run refuses each existing backup; --no-backup keeps none', async () => {
+  it('--in-place on a directory keeps FILE.bak; a second run keeps each existing backup; --no-backup keeps none', async () => {
     writeTree(at('in'), NESTED);
     const r = await run(['--in-place', at('in')]);
     expect(r.code).toBe(EXIT_OK);
     expect(tree(at('in'))).toEqual(['a.svg', 'a.svg.bak', 'd.svg', 'd.svg.bak', 'parts/b.svg', 'parts/b.svg.bak', 'parts/deep/c.svg', 'parts/deep/c.svg.bak', 'parts/readme.txt']);
     expect(readFileSync(at('in', 'parts', 'b.svg.bak'), 'utf8')).toBe(circle(20));
     expect(readFileSync(at('in', 'parts', 'b.svg'), 'utf8')).toBe(refitSvg(circle(20), {}, at('in', 'parts', 'b.svg')).text);
+    // A nightly second run: every file is refitted again, every backup still holds the original of the first run.
     writeFileSync(at('in', 'a.svg'), circle(31));
     const again = await run(['--in-place', at('in')]);
-    expect(again.code).toBe(EXIT_USAGE);
-    expect(again.stderr).toContain(`arcspline: ${at('in', 'a.svg')}.bak exists already; remove it, or give --no-backup\n`);
-    expect(readFileSync(at('in', 'a.svg'), 'utf8')).toBe(circle(31));
+    expect(again.code).toBe(EXIT_OK);
+    expect(again.stderr).not.toMatch(/exists/);
+    expect(readFileSync(at('in', 'a.svg'), 'utf8')).toBe(refitSvg(circle(31), {}, at('in', 'a.svg')).text);
+    expect(readFileSync(at('in', 'a.svg.bak'), 'utf8')).toBe(circle(30));
+    expect(readFileSync(at('in', 'parts', 'b.svg.bak'), 'utf8')).toBe(circle(20));
+    writeFileSync(at('in', 'a.svg'), circle(32));
     const nb = await run(['--in-place', '--no-backup', at('in', 'a.svg'), at('in', 'd.svg')]);
     expect(nb.code).toBe(EXIT_OK);
-    expect(readFileSync(at('in', 'a.svg'), 'utf8')).toBe(refitSvg(circle(31), {}, at('in', 'a.svg')).text);
+    expect(readFileSync(at('in', 'a.svg'), 'utf8')).toBe(refitSvg(circle(32), {}, at('in', 'a.svg')).text);
     expect(readFileSync(at('in', 'a.svg.bak'), 'utf8')).toBe(circle(30)); // the first run's backup, kept
   });
 
@@ -191,7 +195,7 @@ describe('progress', () => {
 
 const ROOT = fileURLToPath(new URL('../..', import.meta.url));
 const BIN = join(ROOT, 'bin', 'arcspline.js');
-const BUILT = join(ROOT, 'dist', 'src', 'cli', 'worker.js');
+const BUILT = join(ROOT, 'dist', 'src', 'refitWorker.js');
 
 describe('batch through the built binary (worker threads)', () => {
   beforeAll(() => {
