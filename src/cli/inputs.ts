@@ -1,6 +1,6 @@
 /**
  * Expanding the command's inputs into a list of files: named files as they
- * are, directories walked recursively for `*.svg`, and glob patterns.
+ * are, directories walked recursively for `*.svg` and `*.svgz`, and glob patterns.
  *
  * Every file carries `rel`, its path below the root it was found under (a
  * directory input, a pattern's fixed leading directories, or the named file's
@@ -53,9 +53,9 @@ export function isGlobPattern(input: string): boolean {
   return GLOB_CHARS.test(input);
 }
 
-/** Whether a file name counts as SVG in a directory walk (`.svg`, any case). */
+/** Whether a file name counts as SVG in a directory walk (`.svg`, or gzipped `.svgz`; any case). */
 export function isSvgName(name: string): boolean {
-  return /\.svg$/i.test(name);
+  return /\.svgz?$/i.test(name);
 }
 
 function escapeRe(s: string): string {

@@ -64,7 +64,7 @@ export async function planJobs(files: readonly InputFile[], flags: PlanFlags): P
     if (st !== null && !st.isDirectory()) {
       throw new UsageError(`-o ${dir} is a file; a batch needs an output directory (or refit one file at a time)`);
     }
-    if (st === null && /\.svg$/i.test(dir)) {
+    if (st === null && /\.svgz?$/i.test(dir)) {
       throw new UsageError(`-o ${dir} looks like a file name; a batch of ${files.length} files needs an output directory (or refit one file at a time)`);
     }
     const realDir = await realish(dir);
