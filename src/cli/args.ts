@@ -8,6 +8,7 @@ import { Command, InvalidArgumentError, Option } from 'commander';
 import { DEFAULT_OPTIONS, OPTION_DOCS, OptionError, parseToleranceText, resolveOptions, type Options } from '../options.js';
 import { availableParallelism } from 'node:os';
 import { VERSION } from '../version.js';
+import { UsageError } from './exitCodes.js';
 import { DEFAULT_WORKER_MEMORY_MB } from '../workerPool.js';
 
 /** The flag that sets each library option (every option has exactly one). */
@@ -146,24 +147,51 @@ function optionHelp(key: keyof Options): string {
   return `${doc.meaning}${extra}${def ? ` (default: ${def})` : ''}`;
 }
 
+/** The option of a library setting, declared once for every command that takes it (flag, meaning, default, parser). */
+function libraryOption(key: keyof Options): Option {
+  const opt = new Option(OPTION_FLAGS[key], optionHelp(key));
+  const parse = PARSERS[key];
+  if (parse) opt.argParser(parse);
+  return opt;
+}
+
+/** Which command a parse chose (set by the commands' actions). */
+export const CHOSEN = Symbol('arcspline command');
+
+/**
+ * The `measure` subcommand: the deviation between any two SVG files. Shares
+ * the length and size options with the refit; its own flag is --json.
+ */
+function measureCommand(): Command {
+  const cmd = new Command('measure')
+    .description('Measure how far two SVG drawings are apart, in mm on the machine: per element (paired by id, else in document order) and the whole drawing, both directions, with the worst spot.')
+    .summary('measure how far two SVG drawings are apart, in mm (arcspline measure --help)')
+    .argument('<a>', 'the first SVG file (for example the original), or - for standard input')
+    .argument('<b>', 'the second SVG file (for example a refitted one)')
+    .addOption(libraryOption('tolerance'))
+    .addOption(libraryOption('assumedMmPerUnit'))
+    .addOption(libraryOption('maxInputBytes'))
+    .option('--json', 'print the figures as JSON instead of a table')
+    .addHelpText('after', '\nExit codes: 0 within the tolerance, 1 not within it, 2 usage or input error, 3 internal error.\n')
+    .action(function (this: Command) {
+      (cmd as unknown as Record<symbol, string>)[CHOSEN] = 'measure';
+    });
+  return cmd;
+}
+
 /** The commander program for one run (commander keeps parsed values on the instance, so build one per run). */
 export function buildProgram(out: ProgramOutput, afterHelp: string): Command {
   const program = new Command('arcspline')
     .description('Refit the curves of an SVG cut or plot file with the fewest circular arcs and lines within a tolerance, and report the measured deviation.')
-    .argument('<input...>', 'SVG file to refit, or - for standard input; or, for a batch, several files, directories (searched for *.svg) and quoted patterns such as "in/**/*.svg"')
-    .option('-o, --output <file>', 'write the refitted SVG here; - is standard output; for a batch, the output directory (see "Output" and "Batches" below)')
+    .argument('<input...>', 'SVG file to refit (.svg, or gzipped .svgz), or - for standard input; or, for a batch, several files, directories (searched for *.svg and *.svgz) and quoted patterns such as "in/**/*.svg"')
+    .option('-o, --output <file>', 'write the refitted SVG here (.svgz: gzipped); - is standard output; for a batch, the output directory (see "Output" and "Batches" below)')
     .option('--report <file>', 'write the deviation report as JSON here; - is standard output (one file only)')
     .option('--report-lines <file>', 'write one JSON line per file as it finishes (the report of --report, or an error); - is standard output')
     .option('-j, --jobs <n>', `files refitted at once in a batch, or threads for one very large file (default: one per core, here ${availableParallelism()})`, (t: string) => parseCount(t, 'jobs', 1))
     .option('--worker-memory <MB>', `heap limit of each batch worker (default: ${DEFAULT_WORKER_MEMORY_MB} MB; larger files are refused before reading)`, (t: string) => parseCount(t, 'MB', 64));
-  for (const key of Object.keys(OPTION_FLAGS) as (keyof Options)[]) {
-    const opt = new Option(OPTION_FLAGS[key], optionHelp(key));
-    const parse = PARSERS[key];
-    if (parse) opt.argParser(parse);
-    program.addOption(opt);
-  }
+  for (const key of Object.keys(OPTION_FLAGS) as (keyof Options)[]) program.addOption(libraryOption(key));
   program
-    .option('--table', 'print a table of every element (commands before, pieces after, measured deviation) on standard error')
+    .option('--table', 'print a table of every element (commands before, pieces after, measured deviation) on standard error; in a batch, one per file')
     .option('--preview <file.png>', 'draw the original (grey) and the result (arcs and lines in colour, knots, worst spots, a mm scale) into a PNG (one file only)')
     .option('--in-place', 'rewrite each input file itself, keeping a backup FILE.bak (an existing FILE.bak is kept: it holds the original from the first rewrite)')
     .option('--no-backup', 'with --in-place, keep no FILE.bak')
@@ -180,9 +208,73 @@ export function buildProgram(out: ProgramOutput, afterHelp: string): Command {
       getOutHasColors: () => false,
       getErrHasColors: () => false,
     })
-    .addHelpText('after', afterHelp)
-    .exitOverride();
+    .exitOverride()
+    // Options after `measure` are the subcommand's; no `help` command (a file may be called help).
+    .enablePositionalOptions()
+    .helpCommand(false);
+  // Added after the settings above, so the subcommand inherits the output, help and error handling.
+  program.addCommand(measureCommand().copyInheritedSettings(program));
+  program.addHelpText('after', afterHelp);
+  program.action(() => {
+    (program as unknown as Record<symbol, string>)[CHOSEN] = 'refit';
+  });
   return program;
+}
+
+/** The command a parse ran: 'refit' (the program itself) or 'measure'. */
+export function chosenCommand(program: Command): 'refit' | 'measure' {
+  const measure = program.commands.find((c) => c.name() === 'measure');
+  return measure && (measure as unknown as Record<symbol, string>)[CHOSEN] === 'measure' ? 'measure' : 'refit';
+}
+
+/** The values of `arcspline measure A B` after a parse. */
+export interface MeasureArgs {
+  a: string;
+  b: string;
+  tolerance?: number;
+  assumedMmPerUnit?: number;
+  maxInputBytes?: number;
+  json: boolean;
+}
+
+/** Read `measure`'s values back after `parse()`. */
+export function parsedMeasure(program: Command): MeasureArgs {
+  const cmd = program.commands.find((c) => c.name() === 'measure')!;
+  const o = cmd.opts<Record<string, unknown>>();
+  return {
+    a: cmd.args[0], b: cmd.args[1],
+    tolerance: o.tolerance as number | undefined,
+    assumedMmPerUnit: o.unitlessSize as number | undefined,
+    maxInputBytes: o.maxInput as number | undefined,
+    json: o.json === true,
+  };
+}
+
+/** The units a length flag takes (parseToleranceText's, CSS Values 3 §5.2). */
+export const LENGTH_UNITS: readonly string[] = Object.freeze(['mm', 'cm', 'in', 'pt', 'pc', 'px', 'q']);
+
+/** The flags that take a length, in every spelling. */
+const LENGTH_FLAGS = /^(-t|--tolerance|--unitless-size)(=.*|.*)?$/;
+
+/**
+ * Refuse a length written with a space before its unit (`-t 0.1 mm`), which
+ * commander would read as a length in mm and a file called `mm`.
+ * @throws UsageError naming the flag and how to write it
+ */
+export function checkSpacedUnits(argv: readonly string[]): void {
+  for (let i = 0; i < argv.length; i++) {
+    if (argv[i] === '--') return;
+    const m = LENGTH_FLAGS.exec(argv[i]);
+    if (!m) continue;
+    const flag = m[1];
+    // The value is attached (-t0.1, --tolerance=0.1) or the next argument.
+    const attached = m[2] ? m[2].replace(/^=/, '') : null;
+    if (flag.startsWith('--') && m[2] && !m[2].startsWith('=')) continue; // another flag such as --tolerances
+    const value = attached ?? argv[i + 1];
+    const unit = argv[attached === null ? i + 2 : i + 1];
+    if (value === undefined || unit === undefined || !DECIMAL.test(value) || !LENGTH_UNITS.includes(unit.toLowerCase())) continue;
+    throw new UsageError(`${flag} ${value.trim()} ${unit}: write the number and its unit together, as ${flag} ${value.trim()}${unit}`);
+  }
 }
 
 /** Read the parsed values back from a program after `parse()`. */

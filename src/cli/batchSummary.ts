@@ -4,7 +4,7 @@
  * measured deviation and where, failures, time.
  */
 import type { FileReport } from '../report/types.js';
-import { formatBytes, formatMm, formatTolerance, overTolerance, type Paint, PLAIN } from './summary.js';
+import { commandsReplaced, commandsText, formatBytes, formatMm, formatTolerance, overTolerance, type Paint, PLAIN } from './summary.js';
 
 /** Running totals of a batch. */
 export interface BatchTotals {
@@ -22,6 +22,8 @@ export interface BatchTotals {
   ignored: number;
   /** Drawing commands before in the elements that were rewritten, summed over the files done. */
   commandsBefore: number;
+  /** Drawing commands before in every element (the reports' totals.commandsBefore), summed over the files done. */
+  commandsTotal: number;
   arcs: number;
   lines: number;
   bytesIn: number;
@@ -37,7 +39,7 @@ export interface BatchTotals {
 export function newTotals(files: number, ignored: number, toleranceMm: number): BatchTotals {
   return {
     files, refitted: 0, unchanged: 0, failed: 0, overTolerance: 0, ignored,
-    commandsBefore: 0, arcs: 0, lines: 0, bytesIn: 0, bytesOut: 0, worstDeviation: 0, worstFile: null, toleranceMm,
+    commandsBefore: 0, commandsTotal: 0, arcs: 0, lines: 0, bytesIn: 0, bytesOut: 0, worstDeviation: 0, worstFile: null, toleranceMm,
   };
 }
 
@@ -47,7 +49,8 @@ export function addReport(t: BatchTotals, name: string, report: FileReport, chan
   else t.unchanged++;
   if (overTolerance(report).length > 0) t.overTolerance++;
   // As in the per-file summary line: the commands the new segments replace (kept elements keep theirs).
-  for (const e of report.elements) if (!e.kept) for (const k in e.commandsBefore) t.commandsBefore += e.commandsBefore[k];
+  t.commandsBefore += commandsReplaced(report);
+  t.commandsTotal += report.totals.commandsBefore;
   t.arcs += report.totals.segmentsAfter.arcs;
   t.lines += report.totals.segmentsAfter.lines;
   t.bytesIn += report.bytesIn;
@@ -85,7 +88,7 @@ export function batchTable(t: BatchTotals, seconds: number, jobs: number, paint:
   return [
     paint.bold('arcspline batch summary'),
     row('files', `${t.files}: ${t.refitted} refitted, ${t.unchanged} unchanged, ${failed}${ignored}`),
-    row('segments', `${t.commandsBefore} commands → ${t.arcs + t.lines} (${plural(t.arcs, 'arc')}, ${plural(t.lines, 'line')})`),
+    row('segments', `${commandsText(t.commandsBefore, t.commandsTotal)} → ${t.arcs + t.lines} (${plural(t.arcs, 'arc')}, ${plural(t.lines, 'line')})`),
     row('bytes', `${formatBytes(t.bytesIn)} → ${formatBytes(t.bytesOut)}${pct}`),
     row('worst', worst),
     row('failures', problems.length > 0 ? problems.join('; ') : 'none'),

@@ -13,7 +13,7 @@ import { CommanderError } from 'commander';
 import { OptionError, resolveOptions, type Options } from '../options.js';
 import { measureMain } from './measureMain.js';
 import { SvgInputError } from '../svg/errors.js';
-import { buildProgram, parsedArgs, type CliFlags, type ParsedArgs } from './args.js';
+import { buildProgram, checkSpacedUnits, chosenCommand, parsedArgs, parsedMeasure, type CliFlags, type ParsedArgs } from './args.js';
 import { EXIT_INTERNAL, EXIT_INTERRUPTED, EXIT_OK, EXIT_TOLERANCE, EXIT_USAGE, UsageError } from './exitCodes.js';
 import { runBatch } from './batch.js';
 import { isGlobPattern } from './inputs.js';
@@ -60,8 +60,6 @@ const oneLine = (s: string): string => s.replace(/\s*[\r\n]+\s*/g, ' ').trim();
  * @returns the exit code (EXIT_OK, EXIT_TOLERANCE, EXIT_USAGE or EXIT_INTERNAL)
  */
 export async function main(argv: string[], io: Io = processIo()): Promise<number> {
-  // `arcspline measure A.svg B.svg`: compare any two SVG files (./measureMain.ts).
-  if (argv[0] === 'measure') return measureMain(argv.slice(1), io);
   const err = (line: string): void => void io.stderr.write(`${line}\n`);
   const width = Math.min(100, (io.stdout as { columns?: number }).columns ?? 80);
   const program = buildProgram(
@@ -70,11 +68,18 @@ export async function main(argv: string[], io: Io = processIo()): Promise<number
   );
   let args: ParsedArgs;
   try {
+    checkSpacedUnits(argv);
     program.parse(argv, { from: 'user' });
+    // `arcspline measure A.svg B.svg`: compare any two SVG files (./measureMain.ts).
+    if (chosenCommand(program) === 'measure') return await measureMain(parsedMeasure(program), io);
     args = parsedArgs(program);
   } catch (e) {
     // Help and version exit with 0; every other commander error has printed its own line.
     if (e instanceof CommanderError) return e.exitCode === 0 ? EXIT_OK : EXIT_USAGE;
+    if (e instanceof UsageError) {
+      err(`arcspline: ${e.message}`);
+      return EXIT_USAGE;
+    }
     return internal(e, argv.includes('--debug'), err);
   }
   const paint = choosePaint(io.stderrIsTTY ?? ttyOf(io.stderr), io.env ?? process.env);

@@ -53,9 +53,24 @@ export function overTolerance(report: FileReport): ElementReport[] {
   return report.elements.filter((e) => e.kept && e.deviation !== null && e.deviation.max > report.toleranceMm);
 }
 
+/** Drawing commands of the rewritten elements: the ones the new segments replace (kept elements keep theirs). */
+export function commandsReplaced(report: FileReport): number {
+  let n = 0;
+  for (const e of report.elements) if (!e.kept) for (const k in e.commandsBefore) n += e.commandsBefore[k];
+  return n;
+}
+
 /**
- * One line for one file, e.g. `bracket.svg: 1893 commands → 48 segments
- * (40 arcs, 8 lines) in 5 of 7 elements, max deviation 0.086 mm ≤ 0.1 mm,
+ * "2799 of 2801 commands": the commands replaced, and the file's total as the
+ * report and the table count it (every element), when the two differ.
+ */
+export function commandsText(replaced: number, total: number): string {
+  return replaced === total ? plural(total, 'command') : `${replaced} of ${plural(total, 'command')}`;
+}
+
+/**
+ * One line for one file, e.g. `bracket.svg: 2799 of 2801 commands → 33 segments
+ * (27 arcs, 6 lines) in 5 of 7 elements, max deviation 0.086 mm ≤ 0.1 mm,
  * 32.5 kB → 2.0 kB`.
  */
 export function summaryLine(name: string, report: FileReport, paint: Paint = PLAIN): string {
@@ -66,12 +81,10 @@ export function summaryLine(name: string, report: FileReport, paint: Paint = PLA
   const over = overTolerance(report).length;
   const overText = over > 0 ? paint.red(`; ${plural(over, 'element')} over the tolerance kept unchanged`) : '';
   if (t.rewritten === 0) return `${head} nothing refitted (${plural(t.elements, 'element')} kept as written), ${bytes}${overText}`;
-  let commands = 0;
-  for (const e of report.elements) if (!e.kept) for (const k in e.commandsBefore) commands += e.commandsBefore[k];
   const { arcs, lines } = t.segmentsAfter;
   const dev = `max deviation ${formatMm(t.maxDeviation)} ≤ ${formatTolerance(report.toleranceMm)}`;
   return (
-    `${head} ${plural(commands, 'command')} → ${plural(arcs + lines, 'segment')} (${plural(arcs, 'arc')}, ${plural(lines, 'line')})` +
+    `${head} ${commandsText(commandsReplaced(report), t.commandsBefore)} → ${plural(arcs + lines, 'segment')} (${plural(arcs, 'arc')}, ${plural(lines, 'line')})` +
     ` in ${t.rewritten} of ${plural(t.elements, 'element')}, ${paint.green(dev)}, ${bytes}${overText}`
   );
 }

@@ -16,7 +16,8 @@ function report(elements: ElementReport[], warnings: string[] = []): FileReport 
   return {
     tool: 'arcspline', version: '0', file: 'bracket.svg', toleranceMm: 0.1, bytesIn: 32548, bytesOut: 2037, timeMs: 1, elements, warnings,
     totals: {
-      elements: elements.length, rewritten: rewritten.length, kept: elements.length - rewritten.length, commandsBefore: 0,
+      elements: elements.length, rewritten: rewritten.length, kept: elements.length - rewritten.length,
+      commandsBefore: elements.reduce((s, e) => s + Object.values(e.commandsBefore).reduce((a, b) => a + b, 0), 0),
       segmentsAfter: { arcs: rewritten.reduce((s, e) => s + e.segmentsAfter.arcs, 0), lines: rewritten.reduce((s, e) => s + e.segmentsAfter.lines, 0) },
       maxDeviation: Math.max(0, ...rewritten.map((e) => e.deviation!.max)), withinTolerance: true,
     },
@@ -24,11 +25,14 @@ function report(elements: ElementReport[], warnings: string[] = []): FileReport 
 }
 
 describe('summaryLine', () => {
-  it('counts the commands of the rewritten elements only', () => {
+  it('counts the commands replaced, of the total the report and the table count (every element)', () => {
     const kept = element({ index: 5, id: null, name: 'rect', commandsBefore: { rect: 1 }, kept: true, keptReason: 'exact shape (kept as written)', deviation: null });
-    expect(summaryLine('bracket.svg', report([element({}), kept]))).toBe(
-      'bracket.svg: 1801 commands → 45 segments (40 arcs, 5 lines) in 1 of 2 elements, max deviation 0.086 mm ≤ 0.1 mm, 32.5 kB → 2.0 kB',
+    const r = report([element({}), kept]);
+    expect(r.totals.commandsBefore).toBe(1802);
+    expect(summaryLine('bracket.svg', r)).toBe(
+      'bracket.svg: 1801 of 1802 commands → 45 segments (40 arcs, 5 lines) in 1 of 2 elements, max deviation 0.086 mm ≤ 0.1 mm, 32.5 kB → 2.0 kB',
     );
+    expect(summaryLine('b', report([element({})]))).toMatch(/^b: 1801 commands → 45 segments/);
   });
 
   it('says so when nothing was refitted or there was nothing to refit, and counts elements over the tolerance', () => {
