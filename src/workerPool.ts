@@ -74,7 +74,7 @@ export class ThreadPool {
    * Run one task on a free thread (waiting for one).
    * @throws ThreadLost when the thread dies or the pool is closed before the answer
    */
-  async run<R, T extends PoolTask = PoolTask>(task: T): Promise<R> {
+  async run<R>(task: PoolTask): Promise<R> {
     let slot = this.slots.find((s) => !s.busy);
     while (!slot && this.slots.length >= this.size && !this.closed) {
       await new Promise<void>((r) => this.waiting.push(r));

@@ -45,7 +45,8 @@ describe('the worker pool', () => {
       if (!done.ok) return;
       expect(done.text?.after).toBe(refitSvg(SMALL, {}, join(dir, 'a.svg')).text);
       expect(Buffer.from(done.out).toString('utf8')).toBe(done.text?.after);
-      const missing = await pool.run<FileOutcome>({ ...task, id: 8, path: join(dir, 'none.svg') });
+      const gone: FileTask = { ...task, id: 8, path: join(dir, 'none.svg') };
+      const missing = await pool.run<FileOutcome>(gone);
       expect(missing).toMatchObject({ id: 8, ok: false, exitCode: 2, message: `cannot read ${join(dir, 'none.svg')}: no such file or directory` });
     } finally {
       await pool.close();
