@@ -8,7 +8,6 @@ import { Command, InvalidArgumentError, Option } from 'commander';
 import { DEFAULT_OPTIONS, OPTION_DOCS, OptionError, parseToleranceText, resolveOptions, type Options } from '../options.js';
 import { availableParallelism } from 'node:os';
 import { VERSION } from '../version.js';
-import { UsageError } from './exitCodes.js';
 import { DEFAULT_WORKER_MEMORY_MB } from '../workerPool.js';
 
 /** The flag that sets each library option (every option has exactly one). */
@@ -72,7 +71,8 @@ export interface ProgramOutput {
   width: number;
 }
 
-const DECIMAL = /^\s*[+-]?(?:\d+\.?\d*|\.\d+)(?:e[+-]?\d+)?\s*$/i;
+/** A plain decimal number, as flags take it. */
+export const DECIMAL = /^\s*[+-]?(?:\d+\.?\d*|\.\d+)(?:e[+-]?\d+)?\s*$/i;
 
 /** Validate one option with the library's own rules, so the CLI and the library refuse the same values. */
 function validated<K extends keyof Options>(key: K, value: Options[K]): Options[K] {
@@ -248,33 +248,6 @@ export function parsedMeasure(program: Command): MeasureArgs {
     maxInputBytes: o.maxInput as number | undefined,
     json: o.json === true,
   };
-}
-
-/** The units a length flag takes (parseToleranceText's, CSS Values 3 §5.2). */
-export const LENGTH_UNITS: readonly string[] = Object.freeze(['mm', 'cm', 'in', 'pt', 'pc', 'px', 'q']);
-
-/** The flags that take a length, in every spelling. */
-const LENGTH_FLAGS = /^(-t|--tolerance|--unitless-size)(=.*|.*)?$/;
-
-/**
- * Refuse a length written with a space before its unit (`-t 0.1 mm`), which
- * commander would read as a length in mm and a file called `mm`.
- * @throws UsageError naming the flag and how to write it
- */
-export function checkSpacedUnits(argv: readonly string[]): void {
-  for (let i = 0; i < argv.length; i++) {
-    if (argv[i] === '--') return;
-    const m = LENGTH_FLAGS.exec(argv[i]);
-    if (!m) continue;
-    const flag = m[1];
-    // The value is attached (-t0.1, --tolerance=0.1) or the next argument.
-    const attached = m[2] ? m[2].replace(/^=/, '') : null;
-    if (flag.startsWith('--') && m[2] && !m[2].startsWith('=')) continue; // another flag such as --tolerances
-    const value = attached ?? argv[i + 1];
-    const unit = argv[attached === null ? i + 2 : i + 1];
-    if (value === undefined || unit === undefined || !DECIMAL.test(value) || !LENGTH_UNITS.includes(unit.toLowerCase())) continue;
-    throw new UsageError(`${flag} ${value.trim()} ${unit}: write the number and its unit together, as ${flag} ${value.trim()}${unit}`);
-  }
 }
 
 /** Read the parsed values back from a program after `parse()`. */

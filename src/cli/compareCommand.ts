@@ -43,7 +43,7 @@ export interface CompareCommandOptions {
 export async function readSvgText(path: string, io: CommandIo, maxInputBytes = DEFAULT_OPTIONS.maxInputBytes): Promise<string> {
   if (path === '-' && io.stdin === undefined) throw new UsageError('standard input is not available here; name a file');
   const bytes = await readInputBytes(path === '-' ? null : path, io.stdin as Readable, path === '-' ? 'standard input' : path, maxInputBytes);
-  return decodeSvgBytes(bytes, path === '-' ? 'standard input' : path);
+  return decodeSvgBytes(bytes, path === '-' ? 'standard input' : path, maxInputBytes);
 }
 
 /** The comparison as JSON text (NaN coordinates become null), with a trailing newline. */

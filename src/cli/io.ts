@@ -1,10 +1,10 @@
 /**
- * File input and output for the CLI: reading SVG bytes (UTF-8 or UTF-16) from a file or a
+ * File input and output for the CLI: reading SVG bytes (UTF-8 or UTF-16, maybe gzipped) from a file or a
  * stream, and atomic writes (a temporary file in the same directory, flushed,
  * then renamed over the target), so a reader never sees a partial file and an
  * error leaves no new file behind.
  */
-import { decodeSvgBytes as decodeText, detectSvgEncoding } from '../svg/decode.js';
+import { readSvgBytes } from '../svg/decode.js';
 import { DEFAULT_OPTIONS } from '../options.js';
 import { SvgInputError } from '../svg/errors.js';
 import { randomBytes } from 'node:crypto';
@@ -80,25 +80,18 @@ export async function readInputBytes(path: string | null, stdin: Readable, name:
 
 /**
  * Decode SVG bytes: UTF-8 (ASCII is a subset), UTF-8 with a BOM, or UTF-16 by
- * its BOM or XML declaration (src/svg/decode.ts). A byte-order mark is kept in
- * the text, so an unchanged document is written back byte for byte.
+ * its BOM or XML declaration, gzip (`.svgz`) inflated first (src/svg/decode.ts).
+ * A byte-order mark is kept in the text, so an unchanged document is written
+ * back byte for byte.
+ * @param limit largest inflated size of gzip data, bytes
  */
-export function decodeSvgBytes(bytes: Uint8Array, name: string): string {
+export function decodeSvgBytes(bytes: Uint8Array, name: string, limit = DEFAULT_OPTIONS.maxInputBytes): string {
   try {
-    return decodeText(bytes);
+    return readSvgBytes(bytes, limit).text;
   } catch (e) {
     if (e instanceof SvgInputError) throw new UsageError(`${name}: ${e.message}`);
     throw e;
   }
-}
-
-/** The text in the encoding the input came in (UTF-8, or UTF-16 with its byte order), for writing back. */
-export function encodeLike(text: string, original: Uint8Array): string | Uint8Array {
-  const { encoding } = detectSvgEncoding(original);
-  if (encoding === 'utf-8') return text;
-  const le = Buffer.from(text, 'utf16le');
-  if (encoding === 'utf-16be') le.swap16();
-  return le;
 }
 
 /** Whether two paths name the same existing file (same device and inode, so links count too). */

@@ -7,7 +7,7 @@ import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { EXIT_OK, EXIT_USAGE } from '../../src/cli/exitCodes.js';
-import { checkSpacedUnits, LENGTH_UNITS } from '../../src/cli/args.js';
+import { checkSpacedUnits, LENGTH_UNITS } from '../../src/cli/spacedUnits.js';
 import { parseToleranceText } from '../../src/options.js';
 import { run, scratch, SMALL } from './helpers.js';
 
@@ -58,6 +58,16 @@ describe('a length with a space before its unit', () => {
     expect(() => checkSpacedUnits(['--unitless-size', '1', 'px', 'a.svg'])).toThrow(/as --unitless-size 1px/);
     // A file that happens to follow a number elsewhere is fine.
     expect(() => checkSpacedUnits(['-t', '0.1mm', 'in.svg', '--digits', '3', 'mm.svg'])).not.toThrow();
+    // A directory that really is called `in` is an input, as written.
+    const cwd = process.cwd();
+    mkdirSync(at('in'));
+    try {
+      process.chdir(dir);
+      expect(() => checkSpacedUnits(['-t', '0.1', 'in', '-o', 'out'])).not.toThrow();
+      expect(() => checkSpacedUnits(['-t', '0.1', 'mm', '-o', 'out'])).toThrow(/-t 0\.1mm/);
+    } finally {
+      process.chdir(cwd);
+    }
     // Every unit the check knows is one the tolerance parser takes.
     for (const u of LENGTH_UNITS) expect(parseToleranceText(`1${u}`), u).toBeGreaterThan(0);
   });
