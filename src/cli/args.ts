@@ -213,7 +213,9 @@ export function buildProgram(out: ProgramOutput, afterHelp: string): Command {
     .enablePositionalOptions()
     .helpCommand(false);
   // Added after the settings above, so the subcommand inherits the output, help and error handling.
-  program.addCommand(measureCommand().copyInheritedSettings(program));
+  program.addCommand(measureCommand().copyInheritedSettings(program).configureOutput({
+    outputError: (text, write) => write(`arcspline: ${text.replace(/^error: /, '').trimEnd()} (arcspline measure --help shows the usage)\n`),
+  }));
   program.addHelpText('after', afterHelp);
   program.action(() => {
     (program as unknown as Record<symbol, string>)[CHOSEN] = 'refit';

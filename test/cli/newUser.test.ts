@@ -42,7 +42,7 @@ describe('measure is a subcommand', () => {
     expect(JSON.parse(r.stdout).toleranceMm).toBeCloseTo(0.254, 12); // CSS Values 3 §5.2: 1in = 25.4mm
     const bad = await run(['measure', at('a.svg'), at('a.svg'), '--in-place']);
     expect(bad.code).toBe(EXIT_USAGE);
-    expect(bad.stderr).toMatch(/^arcspline: unknown option '--in-place'/);
+    expect(bad.stderr).toMatch(/^arcspline: unknown option '--in-place' \(arcspline measure --help shows the usage\)\n$/);
   });
 });
 
