@@ -3,7 +3,7 @@
  * unpaired elements, the whole-document distance and the verdict. Same
  * layout rules and colours as the report table (./table.ts).
  */
-import type { Comparison } from './compare.js';
+import type { Comparison } from '../measure/compare.js';
 import { elementLabel, formatGrid, formatMmValue, paint, type Cell, type TableOptions } from './table.js';
 
 /** Column titles of the comparison table (deviations in mm). */

@@ -20,7 +20,7 @@ import sharp from 'sharp';
 import { readSvg } from '../svg/document.js';
 import { DEFAULT_OPTIONS } from '../options.js';
 import { OP_C, OP_Q } from '../svg/pathTypes.js';
-import { compareSvg, geometryItems, type GeometryItem } from './compare.js';
+import { compareSvg, geometryItems, type GeometryItem } from '../measure/compare.js';
 import { addPathBounds, boxesMeet, emptyBox, originalMarkup, resultMarkup, type Box, type Ink } from './previewGeometry.js';
 import { elementLabel, formatMmValue } from './table.js';
 import type { FileReport } from './types.js';

@@ -11,7 +11,7 @@
  */
 import { OP_A, OP_ARGS, OP_C, OP_L, OP_M, OP_Q, OP_Z, type PathData } from '../svg/pathTypes.js';
 import type { Matrix } from '../svg/matrixTypes.js';
-import { ARC_ELLIPSE, endpointToCenter } from './sample.js';
+import { ARC_ELLIPSE, endpointToCenter } from '../measure/sample.js';
 
 /** An axis-aligned box in mm: [minX, minY, maxX, maxY]; empty when minX > maxX. */
 export type Box = [number, number, number, number];

@@ -6,7 +6,7 @@ import { join } from 'node:path';
 import { Writable } from 'node:stream';
 import { afterAll, describe, expect, it } from 'vitest';
 import { svgPathProperties } from 'svg-path-properties';
-import { compareSvg } from '../../src/report/compare.js';
+import { compareSvg } from '../../src/measure/compare.js';
 import { formatComparison } from '../../src/report/compareTable.js';
 import { runCompare } from '../../src/cli/compareCommand.js';
 import { refitSvg } from '../../src/refit.js';
