@@ -61,8 +61,7 @@ export type { Deviation, ElementReport, FileReport } from './report/types.js';
 export { DEFAULT_MAX_SAMPLES, measureDeviation } from './measure/measure.js';
 export { polylineDeviation, polylinePath, segmentsToPathData } from './measure/polylineDeviation.js';
 export { formatTable } from './report/table.js';
-export { renderPreview } from './report/preview.js';
-export type { PreviewOptions } from './report/preview.js';
+// The preview picture is its own entry, 'arcspline/preview' (src/preview.ts): it needs sharp's native code.
 
 /**
  * Measure any two SVG documents against each other:

@@ -6,7 +6,8 @@
  * deviation of a hundredth of a millimetre is visible at all.
  *
  * We build an SVG overlay and let sharp (librsvg) render it; nothing here
- * draws pixels. Everything is placed in mm: each element keeps its path data
+ * draws pixels. sharp is native code, so it is imported only when a picture
+ * is rendered: `import 'arcspline'` never loads it (test/preview.test.ts). Everything is placed in mm: each element keeps its path data
  * in its own user units under its `toMm` matrix (./previewGeometry.ts), so the
  * picture shows both documents as a machine would cut them, whatever their
  * units, viewBox or transforms.
@@ -16,7 +17,6 @@
  * and colour key). Frame choice: the geometry's box, not the root viewport,
  * since a cut file's page is often much larger than what is cut, or absent.
  */
-import sharp from 'sharp';
 import { readSvg } from '../svg/document.js';
 import { DEFAULT_OPTIONS } from '../options.js';
 import { OP_C, OP_Q } from '../svg/pathTypes.js';
@@ -246,6 +246,7 @@ export function mmToPx(frame: PreviewFrame, x: number, y: number): [number, numb
  */
 export async function renderPreview(original: string, result: string, opts: PreviewOptions = {}): Promise<Buffer> {
   const { svg } = buildPreviewSvg(original, result, opts);
+  const { default: sharp } = await import('sharp');
   // density 72: one px of the overlay's unitless size is one pixel.
   return sharp(Buffer.from(svg, 'utf8'), { density: 72, limitInputPixels: false }).png().toBuffer();
 }
