@@ -127,6 +127,8 @@ describe('compareSvg', () => {
     expect(s).toMatch(/\nc\s+c\s+id\s+0\.2\d*\s+0\.2\d*\s+0\.2\d*\s.*OVER/);
     expect(s).toContain('only in A: path#2');
     expect(s).toContain('NOT within tolerance');
+    // One pair: singular ("1 pair", not "1 pairs").
+    expect(s).toMatch(/\n1 pair, 1 over 0\.1 mm/);
     expect(formatComparison(c, { color: true })).toMatch(/\x1b\[31m/);
   });
 });
