@@ -1,7 +1,7 @@
 /**
  * The one place that decides whether tests needing `../shared` (the
  * conformance corpus laid beside the project, not part of the repository; see
- * the README, "Tests") run. Without the corpus and without `CI` they skip with
+ * the README, "Set-up") run. Without the corpus and without `CI` they skip with
  * a one-line reason, so a fresh clone passes `npm ci && npm test`; with `CI`
  * set they always run, and a missing corpus fails them loudly instead of
  * passing silently.
@@ -26,15 +26,15 @@ export function ciIsSet(value: string | undefined): boolean {
 export function corpusSkipReason(present: boolean, ci: string | undefined): string | null {
   if (present) return null;
   if (ciIsSet(ci)) {
-    throw new Error(`conformance corpus missing: ${MANIFEST} not found, and CI is set, so the tests that need it must run (README, "Tests")`);
+    throw new Error(`conformance corpus missing: ${MANIFEST} not found, and CI is set, so the tests that need it must run (README, "Set-up")`);
   }
-  return `../shared/corpus not beside the project (${MANIFEST} absent) and CI unset: corpus tests skipped`;
+  return `corpus tests skipped: ${MANIFEST} not found (../shared beside the project) and CI unset`;
 }
 
 /** Null when the corpus tests run here; else why they skip (printed once per test file that asks). Throws under CI without the corpus. */
 export function sharedCorpusSkip(): string | null {
   const reason = corpusSkipReason(existsSync(MANIFEST), process.env.CI);
-  if (reason !== null) console.warn(`skipped: ${reason}`);
+  if (reason !== null) console.warn(reason);
   return reason;
 }
 
