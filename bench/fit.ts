@@ -6,8 +6,8 @@
  */
 import simplify from 'simplify-js';
 import { fitPolyline } from '../src/fit/fitPolyline.js';
-import { polylineDeviation, polylinePath } from '../src/report/polylineDeviation.js';
-import { measureDeviation } from '../src/report/measure.js';
+import { polylineDeviation, polylinePath } from '../src/measure/polylineDeviation.js';
+import { measureDeviation } from '../src/measure/measure.js';
 import { identityMatrix } from '../src/svg/matrix.js';
 import { bigSmooth, ellipse, sine, spiral, type Curve } from './curves.js';
 import { consume, fmt, timeMedian } from './stats.js';

@@ -1,5 +1,5 @@
 /**
- * Benchmark of the independent measurement (src/report/measure.ts) on the
+ * Benchmark of the independent measurement (src/measure/measure.ts) on the
  * pipeline benchmark's kind of element: closed smooth contours of 2,500 line
  * vertices (same generator formula as bench/bigfile.ts, our own scenario,
  * seeded), refitted by the project's own fitter and writer and re-read from the
@@ -21,7 +21,7 @@ import { flattenPath } from '../src/geom/flatten.js';
 import { fitPolyline } from '../src/fit/fitPolyline.js';
 import { emitSegments } from '../src/write/emit.js';
 import { PathWriter } from '../src/write/pathWriter.js';
-import { measureDeviation } from '../src/report/measure.js';
+import { measureDeviation } from '../src/measure/measure.js';
 import { measureDeviation as baselineMeasure } from './baseline/measure.js';
 import { contourPaths } from './bigfile.js';
 

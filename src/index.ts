@@ -58,18 +58,17 @@ export type { Deviation, ElementReport, FileReport } from './report/types.js';
  * `measureDeviation(original, originalToMm, written, writtenToMm, toleranceMm, maxSamples?): Deviation | null`
  * over parsed path data and 6-number SVG matrices (user units → mm).
  */
-export { DEFAULT_MAX_SAMPLES, measureDeviation } from './report/measure.js';
-export { polylineDeviation, polylinePath, segmentsToPathData } from './report/polylineDeviation.js';
+export { DEFAULT_MAX_SAMPLES, measureDeviation } from './measure/measure.js';
+export { polylineDeviation, polylinePath, segmentsToPathData } from './measure/polylineDeviation.js';
 export { formatTable } from './report/table.js';
-export { renderPreview } from './report/preview.js';
-export type { PreviewOptions } from './report/preview.js';
+// The preview picture is its own entry, 'arcspline/preview' (src/preview.ts): it needs sharp's native code.
 
 /**
  * Measure any two SVG documents against each other:
  * `compareSvg(a: string, b: string, opts: CompareOptions): Comparison`.
  */
-export { compareSvg } from './report/compare.js';
-export type { CompareOptions, Comparison, ElementRef, PairDeviation } from './report/compare.js';
+export { compareSvg } from './measure/compare.js';
+export type { CompareOptions, Comparison, ElementRef, PairDeviation } from './measure/compare.js';
 
 /** Parsing path data and the flat path layout `measureDeviation` takes (`ops` opcodes, `args` numbers). */
 export { parsePathData } from './svg/pathData.js';

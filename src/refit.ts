@@ -27,7 +27,7 @@ import { PathWriter } from './write/pathWriter.js';
 import { emitSegments, type EmitContour, writtenArcErrorBound } from './write/emit.js';
 import { digitsForTolerance } from './write/numbers.js';
 import { applyEdits, editStartTag, type Edit } from './write/document.js';
-import { measureDeviation } from './report/measure.js';
+import { measureDeviation } from './measure/measure.js';
 import { elementTag } from './report/table.js';
 import type { ElementReport, FileReport } from './report/types.js';
 import { VERSION } from './version.js';

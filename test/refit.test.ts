@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { refitSvg } from '../src/refit.js';
-import { compareSvg } from '../src/report/compare.js';
+import { compareSvg } from '../src/measure/compare.js';
 import { readSvg } from '../src/svg/document.js';
 import { parsePathData } from '../src/svg/pathData.js';
 import { OP_A, OP_ARGS } from '../src/svg/pathTypes.js';

@@ -1,6 +1,6 @@
 /**
  * The measuring command, as a function the CLI registers: read two SVG files,
- * compare them (src/report/compare.ts) and print the table or JSON. Proposed
+ * compare them (src/measure/compare.ts) and print the table or JSON. Proposed
  * name: `arcspline measure A.svg B.svg [--tolerance 0.1mm] [--json]`.
  *
  * Exit codes are the CLI's (./exitCodes.ts): 0 within tolerance, 1 not,
@@ -8,7 +8,7 @@
  * 3 internal error.
  */
 import type { Readable, Writable } from 'node:stream';
-import { compareSvg, type Comparison } from '../report/compare.js';
+import { compareSvg, type Comparison } from '../measure/compare.js';
 import { formatComparison } from '../report/compareTable.js';
 import { SvgInputError } from '../svg/errors.js';
 import { readSvg } from '../svg/document.js';

@@ -60,44 +60,54 @@ const NONE = 0, STRAIGHT = 1, CURVED = 2;
  * overflow (1e308 - -1e308 = Infinity).
  */
 export const COORD_LIMIT_FACTOR = 2 ** 40;
-/** The current call's coordinate limit, mm (set by flattenPath). */
-let limit = Infinity;
+/**
+ * The contour being built: its vertices and corners, the join state and the
+ * achieved bound. Every helper takes it as an explicit argument, so nothing
+ * passes through module state; its growing buffers are reused by the next
+ * call (each contour is copied out with slice()).
+ */
+class Build {
+  /** The current call's coordinate limit, mm (set by flattenPath). */
+  limit = Infinity;
+  xy = new Float64Array(4096);
+  /** Doubles used in xy. */
+  len = 0;
+  cornerBuf = new Uint32Array(256);
+  nCorners = 0;
+  /** End tangent of the last non-degenerate piece. */
+  prevKind = NONE; ptx = 0; pty = 0;
+  /** Start tangent of the first piece. */
+  firstKind = NONE; ftx = 0; fty = 0;
+  bound = 0;
+  /** Centre form of the current arc (arcToCenterInto's out-parameter). */
+  readonly arc = new Float64Array(ARC_CENTER_LENGTH);
+}
+/** A finished call's Build, lent to the next one (single-threaded; a call that throws just drops it). */
+let spare: Build | null = null;
 
-// Growing scratch buffers shared by all calls (single-threaded); each contour
-// is copied out with slice().
-let xy = new Float64Array(4096);
-let len = 0; // doubles used in xy
-let cornerBuf = new Uint32Array(256);
-let nCorners = 0;
-// Join state of the contour being built.
-let prevKind = NONE, ptx = 0, pty = 0; // end tangent of the last non-degenerate piece
-let firstKind = NONE, ftx = 0, fty = 0; // start tangent of the first piece
-let bound = 0;
-const arc = new Float64Array(ARC_CENTER_LENGTH);
-
-function push(x: number, y: number): void {
+function push(b: Build, x: number, y: number): void {
   // Written so that NaN fails too.
-  if (!(Math.abs(x) <= limit && Math.abs(y) <= limit)) {
-    throw new RangeError(`a point maps to (${x}, ${y}) mm, beyond ±${limit.toPrecision(3)} mm, where double precision cannot keep the tolerance`);
+  if (!(Math.abs(x) <= b.limit && Math.abs(y) <= b.limit)) {
+    throw new RangeError(`a point maps to (${x}, ${y}) mm, beyond ±${b.limit.toPrecision(3)} mm, where double precision cannot keep the tolerance`);
   }
-  if (len > 0 && xy[len - 2] === x && xy[len - 1] === y) return;
-  if (len + 2 > xy.length) {
-    const next = new Float64Array(xy.length * 2);
-    next.set(xy);
-    xy = next;
+  if (b.len > 0 && b.xy[b.len - 2] === x && b.xy[b.len - 1] === y) return;
+  if (b.len + 2 > b.xy.length) {
+    const next = new Float64Array(b.xy.length * 2);
+    next.set(b.xy);
+    b.xy = next;
   }
-  xy[len] = x;
-  xy[len + 1] = y;
-  len += 2;
+  b.xy[b.len] = x;
+  b.xy[b.len + 1] = y;
+  b.len += 2;
 }
 
-function markCorner(index: number): void {
-  if (nCorners === cornerBuf.length) {
-    const next = new Uint32Array(cornerBuf.length * 2);
-    next.set(cornerBuf);
-    cornerBuf = next;
+function markCorner(b: Build, index: number): void {
+  if (b.nCorners === b.cornerBuf.length) {
+    const next = new Uint32Array(b.cornerBuf.length * 2);
+    next.set(b.cornerBuf);
+    b.cornerBuf = next;
   }
-  cornerBuf[nCorners++] = index;
+  b.cornerBuf[b.nCorners++] = index;
 }
 
 /** True when the turn from tangent a to tangent b exceeds CORNER_DEG (a zero tangent never marks). */
@@ -106,51 +116,51 @@ function isBreak(ax: number, ay: number, bx: number, by: number): boolean {
 }
 
 /** Record the join at the current last vertex before a piece of `kind` with start tangent (tx, ty) adds vertices. */
-function join(kind: number, tx: number, ty: number): void {
-  if (prevKind === NONE) {
-    firstKind = kind;
-    ftx = tx;
-    fty = ty;
-  } else if ((prevKind === CURVED || kind === CURVED) && isBreak(ptx, pty, tx, ty)) {
-    markCorner(len / 2 - 1);
+function join(b: Build, kind: number, tx: number, ty: number): void {
+  if (b.prevKind === NONE) {
+    b.firstKind = kind;
+    b.ftx = tx;
+    b.fty = ty;
+  } else if ((b.prevKind === CURVED || kind === CURVED) && isBreak(b.ptx, b.pty, tx, ty)) {
+    markCorner(b, b.len / 2 - 1);
   }
 }
 
-function begin(x: number, y: number): void {
-  len = 0;
-  nCorners = 0;
-  prevKind = NONE;
-  firstKind = NONE;
-  bound = 0;
-  push(x, y);
+function begin(b: Build, x: number, y: number): void {
+  b.len = 0;
+  b.nCorners = 0;
+  b.prevKind = NONE;
+  b.firstKind = NONE;
+  b.bound = 0;
+  push(b, x, y);
 }
 
-function finish(out: Contour[], closed: boolean, stats: FlattenStats | undefined): void {
+function finish(b: Build, out: Contour[], closed: boolean, stats: FlattenStats | undefined): void {
   let corner0 = false;
-  if (closed && len >= 4) {
-    const fx = xy[0], fy = xy[1];
-    const lx = xy[len - 2], ly = xy[len - 1];
+  if (closed && b.len >= 4) {
+    const fx = b.xy[0], fy = b.xy[1];
+    const lx = b.xy[b.len - 2], ly = b.xy[b.len - 1];
     if (lx === fx && ly === fy) {
-      len -= 2;
+      b.len -= 2;
     } else {
       // The closing line is a piece of its own: join at the last vertex.
       const tx = fx - lx, ty = fy - ly;
-      join(STRAIGHT, tx, ty);
-      prevKind = STRAIGHT;
-      ptx = tx;
-      pty = ty;
+      join(b, STRAIGHT, tx, ty);
+      b.prevKind = STRAIGHT;
+      b.ptx = tx;
+      b.pty = ty;
     }
-    corner0 = (prevKind === CURVED || firstKind === CURVED) && isBreak(ptx, pty, ftx, fty);
+    corner0 = (b.prevKind === CURVED || b.firstKind === CURVED) && isBreak(b.ptx, b.pty, b.ftx, b.fty);
   }
-  if (len >= 4) {
-    const corners = new Uint32Array(nCorners + (corner0 ? 1 : 0));
+  if (b.len >= 4) {
+    const corners = new Uint32Array(b.nCorners + (corner0 ? 1 : 0));
     // Vertex 0 comes first to keep the list ascending.
     if (corner0) corners[0] = 0;
-    corners.set(cornerBuf.subarray(0, nCorners), corner0 ? 1 : 0);
-    out.push({ xy: xy.slice(0, len), closed, corners });
-    if (stats) stats.bounds.push(bound);
+    corners.set(b.cornerBuf.subarray(0, b.nCorners), corner0 ? 1 : 0);
+    out.push({ xy: b.xy.slice(0, b.len), closed, corners });
+    if (stats) stats.bounds.push(b.bound);
   }
-  len = 0;
+  b.len = 0;
 }
 
 /**
@@ -168,7 +178,9 @@ export function flattenPath(p: PathData, toMm: Matrix, maxError: number, stats?:
   if (!(maxError > 0) || !Number.isFinite(maxError)) {
     throw new RangeError(`maxError must be a positive number of mm, got ${maxError}`);
   }
-  limit = maxError * COORD_LIMIT_FACTOR;
+  const b = spare ?? new Build();
+  spare = null;
+  b.limit = maxError * COORD_LIMIT_FACTOR;
   const ma = toMm[0], mb = toMm[1], mc = toMm[2], md = toMm[3], me = toMm[4], mf = toMm[5];
   const ops = p.ops, args = p.args;
   const out: Contour[] = [];
@@ -176,7 +188,7 @@ export function flattenPath(p: PathData, toMm: Matrix, maxError: number, stats?:
   let ux = 0, uy = 0, sx = 0, sy = 0;
   let qx = me, qy = mf, sqx = me, sqy = mf;
   let k = 0;
-  begin(qx, qy);
+  begin(b, qx, qy);
   for (let i = 0; i < ops.length; i++) {
     const op = ops[i];
     if (op === OP_L) {
@@ -187,21 +199,21 @@ export function flattenPath(p: PathData, toMm: Matrix, maxError: number, stats?:
       uy = y;
       const tx = nx - qx, ty = ny - qy;
       if (tx === 0 && ty === 0) continue;
-      if (prevKind === CURVED || prevKind === NONE) join(STRAIGHT, tx, ty);
-      push(nx, ny);
-      prevKind = STRAIGHT;
-      ptx = tx;
-      pty = ty;
+      if (b.prevKind === CURVED || b.prevKind === NONE) join(b, STRAIGHT, tx, ty);
+      push(b, nx, ny);
+      b.prevKind = STRAIGHT;
+      b.ptx = tx;
+      b.pty = ty;
       qx = nx;
       qy = ny;
     } else if (op === OP_M) {
-      finish(out, false, stats);
+      finish(b, out, false, stats);
       ux = sx = args[k];
       uy = sy = args[k + 1];
       k += 2;
       qx = sqx = ma * ux + mc * uy + me;
       qy = sqy = mb * ux + md * uy + mf;
-      begin(qx, qy);
+      begin(b, qx, qy);
     } else if (op === OP_C) {
       const x1 = ma * args[k] + mc * args[k + 1] + me, y1 = mb * args[k] + md * args[k + 1] + mf;
       const x2 = ma * args[k + 2] + mc * args[k + 3] + me, y2 = mb * args[k + 2] + md * args[k + 3] + mf;
@@ -209,7 +221,7 @@ export function flattenPath(p: PathData, toMm: Matrix, maxError: number, stats?:
       uy = args[k + 5];
       k += 6;
       const x3 = ma * ux + mc * uy + me, y3 = mb * ux + md * uy + mf;
-      bezier3(qx, qy, x1, y1, x2, y2, x3, y3, maxError);
+      bezier3(b, qx, qy, x1, y1, x2, y2, x3, y3, maxError);
       qx = x3;
       qy = y3;
     } else if (op === OP_Q) {
@@ -220,13 +232,13 @@ export function flattenPath(p: PathData, toMm: Matrix, maxError: number, stats?:
       const x2 = ma * ux + mc * uy + me, y2 = mb * ux + md * uy + mf;
       // Degree elevation to a cubic is exact, keeps the end tangents' directions
       // and gives the same flatness constant |P0 − 2P1 + P2|/4 (see ./bezier.ts).
-      bezier3(qx, qy, qx + (2 / 3) * (x1 - qx), qy + (2 / 3) * (y1 - qy),
+      bezier3(b, qx, qy, qx + (2 / 3) * (x1 - qx), qy + (2 / 3) * (y1 - qy),
         x2 + (2 / 3) * (x1 - x2), y2 + (2 / 3) * (y1 - y2), x2, y2, maxError);
       qx = x2;
       qy = y2;
     } else if (op === OP_A) {
       const x = args[k + 5], y = args[k + 6];
-      const status = arcToCenterInto(arc, ux, uy, args[k], args[k + 1], args[k + 2],
+      const status = arcToCenterInto(b.arc, ux, uy, args[k], args[k + 1], args[k + 2],
         args[k + 3] !== 0, args[k + 4] !== 0, x, y);
       k += 7;
       if (status === ARC_OMITTED) continue; // omitted (F.6.2): the current point stays
@@ -236,35 +248,36 @@ export function flattenPath(p: PathData, toMm: Matrix, maxError: number, stats?:
       const tx = nx - qx, ty = ny - qy;
       if (status === ARC_LINE) {
         if (tx === 0 && ty === 0) continue;
-        join(STRAIGHT, tx, ty);
-        push(nx, ny);
-        prevKind = STRAIGHT;
-        ptx = tx;
-        pty = ty;
+        join(b, STRAIGHT, tx, ty);
+        push(b, nx, ny);
+        b.prevKind = STRAIGHT;
+        b.ptx = tx;
+        b.pty = ty;
       } else if (status === ARC_ELLIPSE) {
-        ellipse(ma, mb, mc, md, me, mf, nx, ny, maxError);
+        ellipse(b, ma, mb, mc, md, me, mf, nx, ny, maxError);
       }
       qx = nx;
       qy = ny;
     } else if (op === OP_Z) {
-      finish(out, true, stats);
+      finish(b, out, true, stats);
       ux = sx;
       uy = sy;
       qx = sqx;
       qy = sqy;
       // A command after Z other than M starts a new subpath at the same point.
-      begin(qx, qy);
+      begin(b, qx, qy);
     } else {
       throw new RangeError(`unknown path opcode ${op} at segment ${i}`);
     }
   }
-  finish(out, false, stats);
+  finish(b, out, false, stats);
+  spare = b;
   return out;
 }
 
 /** Append a cubic's vertices after the current last vertex (x0, y0), control points in mm. */
 function bezier3(
-  x0: number, y0: number, x1: number, y1: number,
+  b: Build, x0: number, y0: number, x1: number, y1: number,
   x2: number, y2: number, x3: number, y3: number, maxError: number,
 ): void {
   if (x0 === x1 && x1 === x2 && x2 === x3 && y0 === y1 && y1 === y2 && y2 === y3) return;
@@ -278,18 +291,18 @@ function bezier3(
   let ex = x3 - x2, ey = y3 - y2;
   if (ex === 0 && ey === 0) { ex = x3 - x1; ey = y3 - y1; }
   if (ex === 0 && ey === 0) { ex = x3 - x0; ey = y3 - y0; }
-  join(kind, sx, sy);
+  join(b, kind, sx, sy);
   for (let i = 1; i < n; i++) {
     const t = i / n, s = 1 - t;
     const b0 = s * s * s, b1 = 3 * s * s * t, b2 = 3 * s * t * t, b3 = t * t * t;
-    push(b0 * x0 + b1 * x1 + b2 * x2 + b3 * x3, b0 * y0 + b1 * y1 + b2 * y2 + b3 * y3);
+    push(b, b0 * x0 + b1 * x1 + b2 * x2 + b3 * x3, b0 * y0 + b1 * y1 + b2 * y2 + b3 * y3);
   }
-  push(x3, y3);
-  prevKind = kind;
-  ptx = ex;
-  pty = ey;
+  push(b, x3, y3);
+  b.prevKind = kind;
+  b.ptx = ex;
+  b.pty = ey;
   const e = flat / (n * n);
-  if (e > bound) bound = e;
+  if (e > b.bound) b.bound = e;
 }
 
 /**
@@ -297,10 +310,10 @@ function bezier3(
  * by the matrix, ending exactly at the mapped end point (nx, ny).
  */
 function ellipse(
-  ma: number, mb: number, mc: number, md: number, me: number, mf: number,
+  b: Build, ma: number, mb: number, mc: number, md: number, me: number, mf: number,
   nx: number, ny: number, maxError: number,
 ): void {
-  const cx = arc[0], cy = arc[1], rx = arc[2], ry = arc[3], phi = arc[4], t1 = arc[5], dt = arc[6];
+  const cx = b.arc[0], cy = b.arc[1], rx = b.arc[2], ry = b.arc[3], phi = b.arc[4], t1 = b.arc[5], dt = b.arc[6];
   const cosP = Math.cos(phi), sinP = Math.sin(phi);
   // E = L·R(φ)·diag(rx, ry): columns (ea, eb) and (ec, ed).
   const ux = rx * cosP, uy = rx * sinP, vx = -ry * sinP, vy = ry * cosP;
@@ -326,17 +339,17 @@ function ellipse(
   }
   const sign = dt < 0 ? -1 : 1;
   const c0 = Math.cos(t1), s0 = Math.sin(t1);
-  join(CURVED, sign * (ec * c0 - ea * s0), sign * (ed * c0 - eb * s0));
+  join(b, CURVED, sign * (ec * c0 - ea * s0), sign * (ed * c0 - eb * s0));
   for (let i = 1; i < n; i++) {
     const t = t1 + (dt * i) / n;
     const c = Math.cos(t), s = Math.sin(t);
-    push(ccx + ea * c + ec * s, ccy + eb * c + ed * s);
+    push(b, ccx + ea * c + ec * s, ccy + eb * c + ed * s);
   }
-  push(nx, ny);
+  push(b, nx, ny);
   const t2 = t1 + dt;
   const c2 = Math.cos(t2), s2 = Math.sin(t2);
-  prevKind = CURVED;
-  ptx = sign * (ec * c2 - ea * s2);
-  pty = sign * (ed * c2 - eb * s2);
-  if (e > bound) bound = e;
+  b.prevKind = CURVED;
+  b.ptx = sign * (ec * c2 - ea * s2);
+  b.pty = sign * (ed * c2 - eb * s2);
+  if (e > b.bound) b.bound = e;
 }

@@ -3,8 +3,8 @@
  * unpaired elements, the whole-document distance and the verdict. Same
  * layout rules and colours as the report table (./table.ts).
  */
-import type { Comparison } from './compare.js';
-import { elementLabel, formatGrid, formatMmValue, paint, type Cell, type TableOptions } from './table.js';
+import type { Comparison } from '../measure/compare.js';
+import { countOf, elementLabel, formatGrid, formatMmValue, paint, type Cell, type TableOptions } from './table.js';
 
 /** Column titles of the comparison table (deviations in mm). */
 export const PAIR_COLUMNS: readonly string[] = Object.freeze(['A', 'B', 'by', 'max mm', 'a→b', 'b→a', 'worst at (mm)', 'verdict']);
@@ -54,6 +54,6 @@ export function formatComparison(c: Comparison, opts: TableOptions, names: { a: 
   );
   const t = c.totals;
   const verdict = t.withinTolerance ? paint('within tolerance', 'good', opts.color) : paint('NOT within tolerance', 'bad', opts.color);
-  lines.push(`${t.pairs} pairs, ${t.overTolerance} over ${formatMmValue(tol)} mm, largest ${formatMmValue(t.maxPairDeviation)} mm: ${verdict}`);
+  lines.push(`${countOf(t.pairs, 'pair')}, ${t.overTolerance} over ${formatMmValue(tol)} mm, largest ${formatMmValue(t.maxPairDeviation)} mm: ${verdict}`);
   return `${lines.join('\n')}\n`;
 }

@@ -6,22 +6,28 @@
  * deviation of a hundredth of a millimetre is visible at all.
  *
  * We build an SVG overlay and let sharp (librsvg) render it; nothing here
- * draws pixels. Everything is placed in mm: each element keeps its path data
+ * draws pixels. sharp is native code, so it is imported only when a picture
+ * is rendered: `import 'arcspline'` never loads it (test/preview.test.ts). Everything is placed in mm: each element keeps its path data
  * in its own user units under its `toMm` matrix (./previewGeometry.ts), so the
  * picture shows both documents as a machine would cut them, whatever their
  * units, viewBox or transforms.
  *
  * Image layout (px): the drawing (the geometry's box in mm plus a margin) at
  * the top left, the inset panel to its right, a legend band below (scale bar
- * and colour key). Frame choice: the geometry's box, not the root viewport,
+ * and colour key). Text is laid out inside the image (./previewLayout.ts):
+ * the canvas grows to hold the labels, the inset's caption and the legend, so
+ * a small drawing gets a wider picture rather than cut-off text. Elements
+ * written back unchanged (kept) are drawn dashed in their own colour, named
+ * in the legend: from the report when there is one, else those whose element
+ * is the same in both documents (same position, name and attributes). Frame choice: the geometry's box, not the root viewport,
  * since a cut file's page is often much larger than what is cut, or absent.
  */
-import sharp from 'sharp';
-import { readSvg } from '../svg/document.js';
+import { readSvg, type SvgDocument } from '../svg/document.js';
 import { DEFAULT_OPTIONS } from '../options.js';
 import { OP_C, OP_Q } from '../svg/pathTypes.js';
-import { compareSvg, geometryItems, type GeometryItem } from './compare.js';
-import { addPathBounds, boxesMeet, emptyBox, originalMarkup, resultMarkup, type Box, type Ink } from './previewGeometry.js';
+import { compareSvg, geometryItems, type GeometryItem } from '../measure/compare.js';
+import { addPathBounds, boxesMeet, emptyBox, keptMarkup, originalMarkup, resultMarkup, type Box, type Ink } from './previewGeometry.js';
+import { esc, FONT, FONT_PX, legendRow, ringLabel, textWidth, type KeyEntry, type PlacedText } from './previewLayout.js';
 import { elementLabel, formatMmValue } from './table.js';
 import type { FileReport } from './types.js';
 
@@ -47,6 +53,7 @@ export const PREVIEW_COLORS = Object.freeze({
   line: '#ef6c00',
   curve: '#7b1fa2',
   knot: '#263238',
+  kept: '#3949ab',
   worst: '#d81b60',
   text: '#212121',
 });
@@ -87,14 +94,14 @@ export interface PreviewSvg {
 const DEFAULT_PX_PER_MM = 8;
 const MAX_SIDE_PX = 4000;
 const LEGEND_PX = 44;
+/** Ring radius around a worst spot, px. */
+const RING_PX = 7;
 const GAP_PX = 12;
 const WORST_SHOWN = 3;
 /** The inset window is this many deviations wide, so the gap spans a tenth of it. */
 const INSET_WINDOWS = 10;
-const FONT = 'DejaVu Sans, Arial, sans-serif';
 
 const num = (v: number): string => String(+v.toPrecision(10));
-const esc = (s: string): string => s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 
 /** The largest 1, 2 or 5 × 10^k not above `mm` (for scale bars). */
 export function niceLength(mm: number): number {
@@ -121,46 +128,65 @@ function itemBox(it: GeometryItem): Box {
   return addPathBounds(emptyBox(), it.path, it.el.toMm);
 }
 
-/** The geometry of both documents drawn at `px` px/mm, only what meets `view` (mm). */
-function geometry(a: GeometryItem[], b: GeometryItem[], boxA: Box[], boxB: Box[], view: Box, px: number, ink: Ink): string {
+/**
+ * Document indices of the result's elements written back unchanged: the
+ * report's kept elements, or without a report those whose element is the same
+ * in both documents (same position, name and attributes).
+ */
+function keptIndices(a: SvgDocument, b: SvgDocument, report: FileReport | undefined): Set<number> {
+  if (report) return new Set(report.elements.filter((e) => e.kept).map((e) => e.index));
+  const byIndex = new Map(a.elements.map((el) => [el.index, el]));
+  const out = new Set<number>();
+  for (const el of b.elements) {
+    const o = byIndex.get(el.index);
+    if (o !== undefined && o.name === el.name && JSON.stringify(o.attrs) === JSON.stringify(el.attrs)) out.add(el.index);
+  }
+  return out;
+}
+
+/** The geometry of both documents drawn at `px` px/mm, only what meets `view` (mm); kept result elements dashed. */
+function geometry(a: GeometryItem[], b: GeometryItem[], boxA: Box[], boxB: Box[], kept: Set<number>, view: Box, px: number, ink: Ink): string {
   const out: string[] = [];
   for (let i = 0; i < a.length; i++) if (boxesMeet(boxA[i], view)) out.push(originalMarkup(a[i].path, a[i].el.toMm, ink, px));
-  for (let i = 0; i < b.length; i++) if (boxesMeet(boxB[i], view)) out.push(resultMarkup(b[i].path, b[i].el.toMm, ink, px, true).svg);
+  for (let i = 0; i < b.length; i++) {
+    if (!boxesMeet(boxB[i], view)) continue;
+    out.push(kept.has(b[i].el.index) ? keptMarkup(b[i].path, b[i].el.toMm, ink, px) : resultMarkup(b[i].path, b[i].el.toMm, ink, px, true).svg);
+  }
   return out.join('\n');
 }
 
-/** A ring around the spot, with its value as a label unless `label` is false. */
-function ring(s: WorstSpot, px: number, label = true): string {
-  const r = 7 / px;
-  const circle = `<circle cx="${num(s.x)}" cy="${num(s.y)}" r="${num(r)}" fill="none" stroke="${PREVIEW_COLORS.worst}" stroke-width="${num(1.5 / px)}"/>`;
-  // Deep in a zoom the font size in user units gets so small that text renders badly: the caption says it instead.
-  if (!label) return circle;
-  return circle +
-    `<text x="${num(s.x + 1.4 * r)}" y="${num(s.y - 1.2 * r)}" font-size="${num(11 / px)}" font-family="${FONT}" fill="${PREVIEW_COLORS.worst}">${esc(`${formatMmValue(s.deviation)} mm`)}</text>`;
+/** A ring around the spot (mm, drawn at `px` px/mm); its label is placed apart (./previewLayout.ts). */
+function ring(s: WorstSpot, px: number): string {
+  return `<circle cx="${num(s.x)}" cy="${num(s.y)}" r="${num(RING_PX / px)}" fill="none" stroke="${PREVIEW_COLORS.worst}" stroke-width="${num(1.5 / px)}"/>`;
 }
 
-/** A horizontal scale bar of `mm` at (x, y) px, `px` px per mm, labelled. */
-function scaleBar(x: number, y: number, mm: number, px: number): string {
+/** A horizontal scale bar of `mm` at (x, y) px, `px` px per mm, labelled; `w` is its width with the label, px. */
+function scaleBar(x: number, y: number, mm: number, px: number): { svg: string; w: number } {
   const w = mm * px;
   const c = PREVIEW_COLORS.text;
-  return `<path d="M${num(x)} ${num(y - 5)}V${num(y)}H${num(x + w)}V${num(y - 5)}" fill="none" stroke="${c}" stroke-width="1.5"/>` +
-    `<text x="${num(x + w / 2)}" y="${num(y + 14)}" font-size="11" font-family="${FONT}" text-anchor="middle" fill="${c}">${esc(`${formatMmValue(mm)} mm`)}</text>`;
+  const label = `${formatMmValue(mm)} mm`;
+  const tw = textWidth(label);
+  // The label is centred under the bar, but never starts left of the bar's own start.
+  const tx = x + Math.max(w / 2, tw / 2);
+  const svg = `<path d="M${num(x)} ${num(y - 5)}V${num(y)}H${num(x + w)}V${num(y - 5)}" fill="none" stroke="${c}" stroke-width="1.5"/>` +
+    `<text x="${num(tx)}" y="${num(y + 14)}" font-size="${FONT_PX}" font-family="${FONT}" text-anchor="middle" fill="${c}">${esc(label)}</text>`;
+  return { svg, w: Math.max(w, tw) };
 }
 
-function legend(y: number, x0: number, curves: boolean): string {
+/** The colour key: only the kinds this picture shows beyond the always-present arc, line, original and knot. */
+function keyEntries(curves: boolean, kept: boolean, worst: boolean): KeyEntry[] {
   const c = PREVIEW_COLORS;
-  const keys: [string, string][] = [['arc', c.arc], ['line', c.line], ...(curves ? [['Bézier', c.curve] as [string, string]] : []), ['original', c.original]];
-  const out: string[] = [];
-  let x = x0;
-  for (const [name, colour] of keys) {
-    const w = name === 'original' ? 1 : 2.5;
-    out.push(`<path d="M${x} ${y}h18" stroke="${colour}" stroke-width="${w}"/><text x="${x + 22}" y="${y + 4}" font-size="11" font-family="${FONT}" fill="${c.text}">${esc(name)}</text>`);
-    x += 30 + 7 * name.length;
-  }
-  out.push(`<circle cx="${x + 4}" cy="${y}" r="2.5" fill="${c.knot}"/><text x="${x + 12}" y="${y + 4}" font-size="11" font-family="${FONT}" fill="${c.text}">knot</text>`);
-  x += 50;
-  out.push(`<circle cx="${x + 6}" cy="${y}" r="6" fill="none" stroke="${c.worst}" stroke-width="1.5"/><text x="${x + 16}" y="${y + 4}" font-size="11" font-family="${FONT}" fill="${c.text}">worst deviation</text>`);
-  return out.join('');
+  const stroke = (colour: string, w: number, dash = ''): string =>
+    `<path d="M0 0h18" stroke="${colour}" stroke-width="${w}"${dash ? ` stroke-dasharray="${dash}"` : ''}/>`;
+  return [
+    { name: 'arc', swatch: stroke(c.arc, 2.5) },
+    { name: 'line', swatch: stroke(c.line, 2.5) },
+    ...(curves ? [{ name: 'Bézier', swatch: stroke(c.curve, 2.5) }] : []),
+    ...(kept ? [{ name: 'kept as it was', swatch: stroke(c.kept, 2.5, '6 4') }] : []),
+    { name: 'original', swatch: stroke(c.original, 1) },
+    { name: 'knot', swatch: `<circle cx="9" cy="0" r="2.5" fill="${c.knot}"/>` },
+    ...(worst ? [{ name: 'worst deviation', swatch: `<circle cx="9" cy="0" r="6" fill="none" stroke="${c.worst}" stroke-width="1.5"/>` }] : []),
+  ];
 }
 
 /**
@@ -170,8 +196,10 @@ function legend(y: number, x0: number, curves: boolean): string {
  */
 export function buildPreviewSvg(original: string, result: string, opts: PreviewOptions = {}): PreviewSvg {
   const read = { assumedMmPerUnit: opts.assumedMmPerUnit ?? DEFAULT_OPTIONS.assumedMmPerUnit };
-  const ia = geometryItems(readSvg(original, read), []);
-  const ib = geometryItems(readSvg(result, read), []);
+  const da = readSvg(original, read), db = readSvg(result, read);
+  const ia = geometryItems(da, []);
+  const ib = geometryItems(db, []);
+  const kept = keptIndices(da, db, opts.report);
   const boxA = ia.map(itemBox), boxB = ib.map(itemBox);
   const all = emptyBox();
   for (const b of [...boxA, ...boxB]) {
@@ -190,47 +218,62 @@ export function buildPreviewSvg(original: string, result: string, opts: PreviewO
   const worst = worstSpots(original, result, opts);
   const ink: Ink = {
     original: PREVIEW_COLORS.original, arc: PREVIEW_COLORS.arc, line: PREVIEW_COLORS.line, curve: PREVIEW_COLORS.curve,
-    knot: PREVIEW_COLORS.knot, originalWidth: 1, resultWidth: 2, knotRadius: 2,
+    knot: PREVIEW_COLORS.knot, kept: PREVIEW_COLORS.kept, originalWidth: 1, resultWidth: 2, knotRadius: 2,
   };
+  // Labels of the rings, in image px: inside the drawing where they fit, else beside it (the canvas grows).
+  const labels: PlacedText[] = worst.map((s) => {
+    const [cx, cy] = [(s.x - minX) * px, (s.y - minY) * px];
+    return ringLabel(`${formatMmValue(s.deviation)} mm`, cx, cy, RING_PX, drawW, PREVIEW_COLORS.worst);
+  });
+  let right = drawW, bottom = drawH;
+  for (const l of labels) { right = Math.max(right, Math.ceil(l.x + l.w) + 2); bottom = Math.max(bottom, Math.ceil(l.y) + 4); }
   const top = worst[0];
   let inset: PreviewFrame['inset'] = null;
+  let caption = '';
   if ((opts.zoomWorst ?? true) && top !== undefined) {
     const size = Math.max(160, Math.min(320, drawH));
     const windowMm = Math.min(Math.max(INSET_WINDOWS * top.deviation, side * 1e-6, 1e-6), Math.max(wMm, hMm));
-    inset = { x: drawW + GAP_PX, y: 0, size, cx: top.x, cy: top.y, windowMm };
+    inset = { x: right + GAP_PX, y: 0, size, cx: top.x, cy: top.y, windowMm };
+    caption = `worst: ${top.label}, ${formatMmValue(top.deviation)} mm (zoom ×${formatMmValue(size / windowMm / px)})`;
+    right = Math.max(inset.x + size, inset.x + textWidth(caption) + 2);
+    bottom = Math.max(bottom, size + 20);
   }
-  const width = inset ? inset.x + inset.size : drawW;
-  const height = Math.max(drawH, inset ? inset.size + 20 : 0) + LEGEND_PX;
+  // The legend band: scale bar, then the colour key; the canvas is at least as wide as both.
+  const curves = ib.some((it) => !kept.has(it.el.index) && it.path.ops.some((op) => op === OP_C || op === OP_Q));
+  const anyKept = ib.some((it) => kept.has(it.el.index));
+  const base = bottom + 22;
+  const bar = scaleBar(10, base, niceLength(Math.max(wMm / 5, 1e-9)), px);
+  const key = legendRow(keyEntries(curves, anyKept, worst.length > 0), 10 + bar.w + 20, base - 4, PREVIEW_COLORS.text);
+  const width = Math.max(right, Math.ceil(key.right) + 10);
+  const height = bottom + LEGEND_PX;
   const view: Box = [minX, minY, minX + wMm, minY + hMm];
   const parts: string[] = [
     `<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${height}" viewBox="0 0 ${width} ${height}">`,
     `<rect width="${width}" height="${height}" fill="${PREVIEW_COLORS.background}"/>`,
     `<svg x="0" y="0" width="${drawW}" height="${drawH}" viewBox="${num(minX)} ${num(minY)} ${num(drawW / px)} ${num(drawH / px)}">`,
-    geometry(ia, ib, boxA, boxB, view, px, ink),
+    geometry(ia, ib, boxA, boxB, kept, view, px, ink),
     ...worst.map((s) => ring(s, px)),
     '</svg>',
+    ...labels.map((l) => l.svg),
   ];
-  // Bézier curves in the result get a key entry only when there are any.
-  const curves = ib.some((it) => it.path.ops.some((op) => op === OP_C || op === OP_Q));
   if (inset) {
     const z = inset.size / inset.windowMm;
     const h = inset.windowMm / 2;
     const win: Box = [inset.cx - h, inset.cy - h, inset.cx + h, inset.cy + h];
-    const bar = niceLength(inset.windowMm / 3);
+    const ibar = niceLength(inset.windowMm / 3);
     parts.push(
       `<svg x="${inset.x}" y="${inset.y}" width="${inset.size}" height="${inset.size}" viewBox="${num(win[0])} ${num(win[1])} ${num(inset.windowMm)} ${num(inset.windowMm)}">`,
       `<rect x="${num(win[0])}" y="${num(win[1])}" width="${num(inset.windowMm)}" height="${num(inset.windowMm)}" fill="#fafafa"/>`,
-      geometry(ia, ib, boxA, boxB, win, z, ink),
-      ring(top, z, false),
+      geometry(ia, ib, boxA, boxB, kept, win, z, ink),
+      // Deep in a zoom a label would need a tiny font in user units: the caption says the value instead.
+      ring(top, z),
       '</svg>',
       `<rect x="${inset.x}" y="${inset.y}" width="${inset.size}" height="${inset.size}" fill="none" stroke="#bdbdbd"/>`,
-      `<text x="${inset.x}" y="${inset.y + inset.size + 14}" font-size="11" font-family="${FONT}" fill="${PREVIEW_COLORS.text}">${esc(`worst: ${top.label}, ${formatMmValue(top.deviation)} mm (zoom ×${formatMmValue(z / px)})`)}</text>`,
-      scaleBar(inset.x + inset.size - bar * z - 8, inset.y + inset.size - 22, bar, z),
+      `<text x="${inset.x}" y="${inset.y + inset.size + 14}" font-size="${FONT_PX}" font-family="${FONT}" fill="${PREVIEW_COLORS.text}">${esc(caption)}</text>`,
+      scaleBar(inset.x + inset.size - ibar * z - 8, inset.y + inset.size - 22, ibar, z).svg,
     );
   }
-  const base = height - LEGEND_PX + 22;
-  const bar = niceLength(Math.max(wMm / 5, 1e-9));
-  parts.push(scaleBar(10, base, bar, px), legend(base - 4, 30 + bar * px, curves), '</svg>');
+  parts.push(bar.svg, key.svg, '</svg>');
   return { svg: parts.join('\n'), frame: { minX, minY, pxPerMm: px, drawW, drawH, width, height, inset }, worst };
 }
 
@@ -246,6 +289,7 @@ export function mmToPx(frame: PreviewFrame, x: number, y: number): [number, numb
  */
 export async function renderPreview(original: string, result: string, opts: PreviewOptions = {}): Promise<Buffer> {
   const { svg } = buildPreviewSvg(original, result, opts);
+  const { default: sharp } = await import('sharp');
   // density 72: one px of the overlay's unitless size is one pixel.
   return sharp(Buffer.from(svg, 'utf8'), { density: 72, limitInputPixels: false }).png().toBuffer();
 }

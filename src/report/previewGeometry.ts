@@ -1,7 +1,7 @@
 /**
  * Geometry pieces of the preview picture (./preview.ts): bounds in mm, and
- * SVG markup for one element, either whole (the original, one neutral path)
- * or split into one sub-path per segment kind (the result: arcs, lines and
+ * SVG markup for one element, either whole (the original, one neutral path;
+ * a kept element, one dashed path) or split into one sub-path per segment kind (the result: arcs, lines and
  * Bézier curves in their own colours) plus its knots.
  *
  * Markup is drawn in mm: each element's path data stays in its own user units
@@ -11,7 +11,7 @@
  */
 import { OP_A, OP_ARGS, OP_C, OP_L, OP_M, OP_Q, OP_Z, type PathData } from '../svg/pathTypes.js';
 import type { Matrix } from '../svg/matrixTypes.js';
-import { ARC_ELLIPSE, endpointToCenter } from './sample.js';
+import { ARC_ELLIPSE, endpointToCenter } from '../measure/sample.js';
 
 /** An axis-aligned box in mm: [minX, minY, maxX, maxY]; empty when minX > maxX. */
 export type Box = [number, number, number, number];
@@ -106,6 +106,8 @@ export interface Ink {
   line: string;
   curve: string;
   knot: string;
+  /** Elements written back unchanged (kept), drawn dashed in this colour. */
+  kept: string;
   originalWidth: number;
   resultWidth: number;
   knotRadius: number;
@@ -115,6 +117,17 @@ export interface Ink {
 export function originalMarkup(p: PathData, toMm: Matrix, ink: Ink, pxPerMm: number): string {
   const w = ink.originalWidth / pxPerMm / meanScale(toMm);
   return `<g transform="${mat(toMm)}"><path d="${pathText(p)}" fill="none" stroke="${ink.original}" stroke-width="${num(w)}" stroke-linejoin="round"/></g>`;
+}
+
+/**
+ * An element written back as it was (kept): its own path, dashed, in the kept
+ * colour and as wide as a result, so it reads neither as the neutral original
+ * nor as refitted arcs and lines. Dash lengths in px of the view.
+ */
+export function keptMarkup(p: PathData, toMm: Matrix, ink: Ink, pxPerMm: number): string {
+  const unit = 1 / pxPerMm / meanScale(toMm);
+  return `<g transform="${mat(toMm)}"><path d="${pathText(p)}" fill="none" stroke="${ink.kept}" stroke-width="${num(ink.resultWidth * unit)}" ` +
+    `stroke-dasharray="${num(6 * unit)} ${num(4 * unit)}" stroke-linejoin="round"/></g>`;
 }
 
 /** Path data as absolute text (numbers to 12 significant digits). */

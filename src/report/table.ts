@@ -107,6 +107,21 @@ export function commandsText(counts: Record<string, number>): string {
     .join(' ');
 }
 
+/** `1 element`, `2 elements`: a count with its noun in the right number (English, regular plurals). */
+export function countOf(n: number, noun: string): string {
+  return `${n} ${n === 1 ? noun : `${noun}s`}`;
+}
+
+/**
+ * A keeping reason as the table prints it after "kept: ". The line already says
+ * "kept", so a reason worded "(kept as written)" or "kept …" loses those words
+ * instead of saying it twice.
+ */
+export function keptReasonText(reason: string | null): string {
+  const r = (reason ?? 'unchanged').replace(/\s*\(kept(?: as written)?\)\s*$/i, '').replace(/^kept(?: as written)?\b[\s:,-]*/i, '').trim();
+  return r === '' ? 'unchanged' : r;
+}
+
 function overTolerance(e: ElementReport): boolean {
   return e.kept && (e.keptReason?.startsWith('measured deviation') ?? false);
 }
@@ -140,7 +155,7 @@ export const ELEMENT_COLUMNS: readonly string[] = Object.freeze([
 export const ELEMENT_LEGEND = 'o→r: original to result, r→o: result to original (mm); moves: line-only moves needed';
 
 /**
- * Reasons for keeping, one line each: "kept (reason): a, b, c", the labels
+ * Reasons for keeping, one line each: "kept: reason: a, b, c", the labels
  * shortened to fit `width`. Over-tolerance reasons are coloured as failures.
  */
 function keptNotes(elements: ElementReport[], opts: TableOptions): string[] {
@@ -148,14 +163,14 @@ function keptNotes(elements: ElementReport[], opts: TableOptions): string[] {
   for (const e of elements) {
     if (!e.kept) continue;
     // One measured figure per element: such reasons are listed each on their own.
-    const key = e.keptReason ?? 'unchanged';
+    const key = keptReasonText(e.keptReason);
     const g = byReason.get(key) ?? { labels: [], bad: overTolerance(e) };
     g.labels.push(elementLabel(e));
     byReason.set(key, g);
   }
   const out: string[] = [];
   for (const [reason, g] of byReason) {
-    const head = `kept (${reason}): `;
+    const head = `kept: ${reason}: `;
     const room = Math.max(MIN_SHRUNK, (opts.width ?? 100) - head.length);
     out.push(paint(head, g.bad ? 'bad' : 'note', opts.color) + clip(g.labels.join(', '), room));
   }
@@ -184,8 +199,8 @@ export function formatTable(report: FileReport, opts: TableOptions): string {
     ? paint('within tolerance', 'good', opts.color)
     : paint('NOT within tolerance (some kept unchanged)', 'bad', opts.color);
   lines.push(
-    `total: ${t.elements} elements, ${t.rewritten} rewritten, ${t.kept} kept; ` +
-      `${t.commandsBefore} commands → ${t.segmentsAfter.arcs} arcs + ${t.segmentsAfter.lines} lines`,
+    `total: ${countOf(t.elements, 'element')}, ${t.rewritten} rewritten, ${t.kept} kept; ` +
+      `${countOf(t.commandsBefore, 'command')} → ${countOf(t.segmentsAfter.arcs, 'arc')} + ${countOf(t.segmentsAfter.lines, 'line')}`,
     `max deviation ${formatMmValue(t.maxDeviation)} mm of ${formatMmValue(tol)} mm: ${verdict}`,
   );
   return `${lines.join('\n')}\n`;

@@ -173,7 +173,7 @@ describe('round trip on our own scenarios at 0.05 mm', () => {
           const what = `${rep.name}#${rep.id}: sampled ${h.toExponential(3)} mm, reported ${rep.deviation.max.toExponential(3)} mm, resolution ${resolution.toExponential(2)} mm, chords ≤ ${Math.max(sa.maxChord, sb.maxChord).toExponential(2)} mm`;
           // Every written sample within the tolerance of the original, and the other way round.
           expect(h, what).toBeLessThanOrEqual(TOLERANCE + resolution);
-          // The report is an upper bound (src/report/measure.ts) overstated by at most 0.5 % of the
+          // The report is an upper bound (src/measure/measure.ts) overstated by at most 0.5 % of the
           // tolerance; sampling can miss up to half the longest chord of the true value.
           expect(h, what).toBeLessThanOrEqual(rep.deviation.max + resolution);
           const missed = Math.max(sa.maxChord, sb.maxChord) / 2;

@@ -1,2 +1,2 @@
-/** The fitter's tests measure with the library's independent check (src/report/polylineDeviation.ts). */
-export { polylineDeviation as deviationOf, polylinePath, segmentsToPathData as writeSegments } from '../../src/report/polylineDeviation.js';
+/** The fitter's tests measure with the library's independent check (src/measure/polylineDeviation.ts). */
+export { polylineDeviation as deviationOf, polylinePath, segmentsToPathData as writeSegments } from '../../src/measure/polylineDeviation.js';

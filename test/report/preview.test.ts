@@ -69,8 +69,10 @@ describe('renderPreview', () => {
       expect(hasColour(px, ...p, PREVIEW_COLORS.line), `line at ${x},${y}`).toBe(true);
       expect(hasColour(px, ...p, PREVIEW_COLORS.arc), `no arc at ${x},${y}`).toBe(false);
     }
-    // The hole circles (kept as circles: arcs by their equivalent path), e.g. the left one's top.
-    expect(hasColour(px, ...at(frame, 20, 17.5), PREVIEW_COLORS.arc)).toBe(true);
+    // The hole circles are kept as written (the report says so): drawn dashed in the kept colour, not as arcs.
+    expect(refit.report.elements.find((e) => e.id === 'hole-left')!.kept).toBe(true);
+    expect(hasColour(px, ...at(frame, 20, 17.5), PREVIEW_COLORS.kept, 5)).toBe(true);
+    expect(hasColour(px, ...at(frame, 20, 17.5), PREVIEW_COLORS.arc, 5)).toBe(false);
     // Empty paper has neither.
     expect(hasColour(px, ...at(frame, 60, 65), PREVIEW_COLORS.arc, 3)).toBe(false);
     // The worst spot is ringed.
@@ -102,11 +104,44 @@ describe('renderPreview', () => {
   });
 
   it('keeps huge drawings at most 4000 px wide, and draws Bézier results in their own colour', async () => {
-    const svg = '<svg xmlns="http://www.w3.org/2000/svg" width="2000mm" height="100mm" viewBox="0 0 2000 100"><path d="M0 50C500 0 1500 100 2000 50"/></svg>';
-    const b = buildPreviewSvg(svg, svg, { zoomWorst: false });
+    const page = (d: string): string => `<svg xmlns="http://www.w3.org/2000/svg" width="2000mm" height="100mm" viewBox="0 0 2000 100"><path d="${d}"/></svg>`;
+    const svg = page('M0 50C500 0 1500 100 2000 50'), other = page('M0 50C500 0 1500 100 2000 50.5');
+    const b = buildPreviewSvg(svg, other, { zoomWorst: false });
     expect(b.frame.drawW).toBeLessThanOrEqual(4000);
-    const px = await decode(await renderPreview(svg, svg, { zoomWorst: false }));
+    const px = await decode(await renderPreview(svg, other, { zoomWorst: false }));
     expect(hasColour(px, ...mmToPx(b.frame, 0, 50), PREVIEW_COLORS.curve, 3)).toBe(true);
+    // Against itself every element is unchanged: drawn as kept, not as a Bézier result.
+    const same = await decode(await renderPreview(svg, svg, { zoomWorst: false }));
+    expect(hasColour(same, ...mmToPx(b.frame, 0, 50), PREVIEW_COLORS.kept, 6)).toBe(true);
+    expect(hasColour(same, ...mmToPx(b.frame, 0, 50), PREVIEW_COLORS.curve, 6)).toBe(false);
+  });
+
+  it('a small drawing: labels, caption and legend lie inside the image; kept elements are dashed and named in the legend', async () => {
+    // Our own scenario: an 8 mm part, a traced circle (polygon, refitted) around a drilled hole (circle, kept as written).
+    const pts: string[] = [];
+    for (let i = 0; i < 90; i++) pts.push(`${(4 + 3 * Math.cos((i * Math.PI) / 45)).toFixed(4)},${(4 + 3 * Math.sin((i * Math.PI) / 45)).toFixed(4)}`);
+    const small = `<svg xmlns="http://www.w3.org/2000/svg" width="8mm" height="8mm" viewBox="0 0 8 8"><polygon id="ring" points="${pts.join(' ')}"/><circle id="hole" cx="4" cy="4" r="1"/></svg>`;
+    const r = refitSvg(small, { tolerance: 0.05 }, 'small.svg');
+    expect(r.report.elements.map((e) => [e.id, e.kept])).toEqual([['ring', false], ['hole', true]]);
+    const b = buildPreviewSvg(small, r.text, { report: r.report });
+    expect(b.svg).toContain('>kept as it was<');
+    const png = await renderPreview(small, r.text, { report: r.report });
+    const meta = await sharp(png).metadata();
+    expect([meta.width, meta.height]).toEqual([b.frame.width, b.frame.height]);
+    // The drawing is far narrower than the legend: the canvas grew instead of cutting it.
+    expect(b.frame.drawW).toBeLessThan(100);
+    expect(b.frame.width).toBeGreaterThan(b.frame.inset!.x + b.frame.inset!.size);
+    const px = await decode(png);
+    // Nothing is drawn in the outermost 4 columns: no text runs off the right edge.
+    expect(countColour(px, px.width - 4, 0, 4, px.height, PREVIEW_COLORS.background, 8)).toBe(4 * px.height);
+    // The legend band holds the kept swatch and, as its last entry, the worst-deviation ring.
+    const band = b.frame.height - 44;
+    expect(countColour(px, 0, band, px.width, 44, PREVIEW_COLORS.kept, 40)).toBeGreaterThan(10);
+    expect(countColour(px, 0, band, px.width, 44, PREVIEW_COLORS.worst, 40)).toBeGreaterThan(10);
+    expect(countColour(px, 0, band, px.width, 44, PREVIEW_COLORS.text, 60)).toBeGreaterThan(200);
+    // The kept hole is dashed in the kept colour; the refitted ring is drawn as arcs.
+    expect(hasColour(px, ...mmToPx(b.frame, 4, 3), PREVIEW_COLORS.kept, 4)).toBe(true);
+    expect(hasColour(px, ...mmToPx(b.frame, 4, 1), PREVIEW_COLORS.arc, 4)).toBe(true);
   });
 
   it('niceLength picks 1, 2 or 5 × 10^k', () => {

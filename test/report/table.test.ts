@@ -2,7 +2,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { refitSvg } from '../../src/refit.js';
-import { commandsText, elementLabel, formatMmValue, formatTable } from '../../src/report/table.js';
+import { commandsText, countOf, elementLabel, formatMmValue, formatTable, keptReasonText } from '../../src/report/table.js';
 import type { FileReport } from '../../src/report/types.js';
 
 const report = refitSvg(readFileSync(new URL('../../samples/bracket.svg', import.meta.url), 'utf8'), {}, 'bracket.svg').report;
@@ -50,7 +50,8 @@ describe('formatTable', () => {
     expect(cells[9]).toBe('refit');
     const hole = s.split('\n').find((l) => l.startsWith('hole-left '))!;
     expect(hole.split(/\s{2,}/)[9]).toBe('kept');
-    expect(s).toContain('kept (exact shape (kept as written)): hole-left, hole-right');
+    expect(s).toContain('kept: exact shape: hole-left, hole-right');
+    expect(s).not.toMatch(/kept.*kept/);
   });
 
   it('fits the width by shortening the last column', () => {
@@ -72,12 +73,35 @@ describe('formatTable', () => {
     const slot = c.split('\n').find((l) => l.startsWith('slot '))!;
     expect(slot).toContain('\x1b[31m');
     expect(c.trimEnd().split('\n').at(-1)).toContain('\x1b[31mNOT within tolerance');
-    expect(c).toContain('\x1b[31mkept (measured deviation 0.310 mm is over the tolerance): \x1b[39mslot');
+    expect(c).toContain('\x1b[31mkept: measured deviation 0.310 mm is over the tolerance: \x1b[39mslot');
     // eslint-disable-next-line no-control-regex
     expect(c.replace(/\x1b\[\d+m/g, '')).toBe(formatTable(r, { color: false, width: 120 }));
   });
 
+  it('counts of one are singular, and a kept line says "kept" once', () => {
+    const one: FileReport = structuredClone(report);
+    const e = one.elements.find((x) => x.id === 'hole-left')!;
+    one.elements = [e];
+    one.totals = { ...one.totals, elements: 1, rewritten: 0, kept: 1, commandsBefore: 1, segmentsAfter: { arcs: 1, lines: 1 } };
+    const s = formatTable(one, { color: false, width: 200 });
+    expect(s).toContain('total: 1 element, 0 rewritten, 1 kept; 1 command → 1 arc + 1 line');
+    expect(s).not.toMatch(/\b1 (elements|commands|arcs|lines)\b/);
+    for (const reason of ['exact shape (kept as written)', 'kept as written: exact shape', 'exact shape']) {
+      e.keptReason = reason;
+      const t = formatTable(one, { color: false, width: 200 });
+      expect(t).toContain('kept: exact shape: hole-left');
+      expect(t).not.toMatch(/kept.*kept/);
+    }
+    expect(formatTable(report, { color: false })).toMatch(/total: \d+ elements, /);
+  });
+
   it('helpers', () => {
+    expect(countOf(0, 'pair')).toBe('0 pairs');
+    expect(countOf(1, 'pair')).toBe('1 pair');
+    expect(countOf(2, 'arc')).toBe('2 arcs');
+    expect(keptReasonText(null)).toBe('unchanged');
+    expect(keptReasonText('exact shape (kept as written)')).toBe('exact shape');
+    expect(keptReasonText('measured deviation 0.310 mm is over the tolerance')).toBe('measured deviation 0.310 mm is over the tolerance');
     expect(elementLabel({ id: null, name: 'polygon', index: 9 })).toBe('polygon#9');
     expect(elementLabel({ id: 'leaf', name: 'polygon', index: 9 })).toBe('leaf');
     expect(commandsText({ M: 1, C: 4, L: 2, Z: 1 })).toBe('C4 L2 M1 Z1');

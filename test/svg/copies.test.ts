@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { readSvg } from '../../src/svg/document.js';
 import { refitSvg } from '../../src/refit.js';
-import { compareSvg } from '../../src/report/compare.js';
+import { compareSvg } from '../../src/measure/compare.js';
 
 const NS = 'xmlns="http://www.w3.org/2000/svg" xmlns:xlink="http://www.w3.org/1999/xlink" width="200mm" height="200mm" viewBox="0 0 200 200"';
 /** A 20 mm circle as four cubics, flattened to a dense polyline (our own test data). */

@@ -11,7 +11,7 @@ import { OP_L, OP_M, OP_Z, type PathData } from '../svg/pathTypes.js';
 import { identityMatrix } from '../svg/matrix.js';
 import { measureDeviation } from './measure.js';
 import type { Segment } from '../fit/segment.js';
-import type { Deviation } from './types.js';
+import type { Deviation } from '../report/types.js';
 
 /** A polyline (flat x,y pairs) as path data: M, L…, and Z when closed. */
 export function polylinePath(xy: Float64Array, closed: boolean): PathData {

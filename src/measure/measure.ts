@@ -10,7 +10,7 @@
  */
 import type { PathData } from '../svg/pathTypes.js';
 import type { Matrix } from '../svg/matrixTypes.js';
-import type { Deviation } from './types.js';
+import type { Deviation } from '../report/types.js';
 import { SampleBuffer, samplePath, sampleCount, type SampledPath } from './sample.js';
 import { buildSegmentIndex, directedDistance } from './hausdorff.js';
 import { SegmentGrid } from './segmentGrid.js';

@@ -8,16 +8,16 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { compiledWorkerUrl as sourceLocator } from '../../src/workerPool.js';
-import { refitSvg } from '../../src/refit.js';
-import { readSvg } from '../../src/svg/document.js';
-import { resolveOptions } from '../../src/options.js';
-import type { ElementJob, ElementJobResult } from '../../src/refitParallel.js';
-import type { FileOutcome, FileTask } from '../../src/cli/fileJob.js';
-import { SMALL } from '../cli/helpers.js';
+import { compiledWorkerUrl as sourceLocator } from '../src/workerPool.js';
+import { refitSvg } from '../src/refit.js';
+import { readSvg } from '../src/svg/document.js';
+import { resolveOptions } from '../src/options.js';
+import type { ElementJob, ElementJobResult } from '../src/refitParallel.js';
+import type { FileOutcome, FileTask } from '../src/cli/fileJob.js';
+import { SMALL } from './cli/helpers.js';
 
-const root = fileURLToPath(new URL('../..', import.meta.url));
-type PoolModule = typeof import('../../src/workerPool.js');
+const root = fileURLToPath(new URL('..', import.meta.url));
+type PoolModule = typeof import('../src/workerPool.js');
 
 describe('the worker pool', () => {
   it('finds the compiled worker in one place, and none from the TypeScript sources', async () => {

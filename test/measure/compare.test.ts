@@ -6,8 +6,7 @@ import { join } from 'node:path';
 import { Writable } from 'node:stream';
 import { afterAll, describe, expect, it } from 'vitest';
 import { svgPathProperties } from 'svg-path-properties';
-import { compareSvg } from '../../src/report/compare.js';
-import { formatComparison } from '../../src/report/compareTable.js';
+import { compareSvg } from '../../src/measure/compare.js';
 import { runCompare } from '../../src/cli/compareCommand.js';
 import { refitSvg } from '../../src/refit.js';
 
@@ -119,16 +118,6 @@ describe('compareSvg', () => {
     expect(compareSvg(doc(''), doc('<path d="M5 5H9"/>'), { tolerance: 0.1 }).totals.withinTolerance).toBe(false);
   });
 
-  it('formats a table with both directions and the verdict', () => {
-    const c = compareSvg(doc('<circle id="c" cx="50" cy="50" r="20"/><path d="M0 90H9"/>'), doc('<circle id="c" cx="50" cy="50" r="20.2"/>'), { tolerance: 0.1 });
-    const s = formatComparison(c, { color: false }, { a: 'a.svg', b: 'b.svg' });
-    expect(s).not.toMatch(/\x1b\[/);
-    expect(s).toContain('a.svg (A) against b.svg (B)');
-    expect(s).toMatch(/\nc\s+c\s+id\s+0\.2\d*\s+0\.2\d*\s+0\.2\d*\s.*OVER/);
-    expect(s).toContain('only in A: path#2');
-    expect(s).toContain('NOT within tolerance');
-    expect(formatComparison(c, { color: true })).toMatch(/\x1b\[31m/);
-  });
 });
 
 describe('runCompare', () => {

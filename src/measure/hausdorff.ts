@@ -63,8 +63,21 @@ export function buildSegmentIndex(polylines: readonly Float64Array[], reuse?: Se
 /** Deepest bisection (2^-48 of a segment is far below double noise for our sizes). */
 const MAX_DEPTH = 48;
 
-// Per-call state of directedDistance, kept at module level so the recursion needs no closure.
-let max = -Infinity, worstX = NaN, worstY = NaN, res = DEFAULT_RESOLUTION;
+/**
+ * The running result of one directedDistance call, handed to the recursion
+ * as an explicit out-parameter (no closure, no module state): `refine` raises
+ * `max` and moves the worst spot with it.
+ */
+interface Running {
+  /** mm, largest bound so far. */
+  max: number;
+  worstX: number;
+  worstY: number;
+  /** mm, the bisection resolution of this call. */
+  readonly res: number;
+}
+
+// Scratch only (no results pass through it): reused by every call, single-threaded, never across a call.
 /** Vertex distances and nearest-segment ids of `a`, grown as needed and reused. */
 let vf = new Float64Array(1024);
 let vj = new Int32Array(1024);
@@ -96,7 +109,7 @@ export function directedDistance(
     vj = new Int32Array(vf.length);
   }
   const f = vf, jn = vj;
-  max = -Infinity; worstX = NaN; worstY = NaN; res = resolution;
+  const run: Running = { max: -Infinity, worstX: NaN, worstY: NaN, res: resolution };
   let sum = 0, samples = 0;
 
   // Pass 1: exact distance of every vertex, each query seeded by the previous vertex's nearest segment.
@@ -113,7 +126,7 @@ export function directedDistance(
       f[v] = d;
       jn[v] = hint;
       if (i < n - 1 || !closedRepeat) { sum += d; samples++; }
-      if (d > max) { max = d; worstX = x; worstY = y; }
+      if (d > run.max) { run.max = d; run.worstX = x; run.worstY = y; }
     }
   }
 
@@ -126,22 +139,22 @@ export function directedDistance(
       const px = pl[2 * i], py = pl[2 * i + 1], qx = pl[2 * i + 2], qy = pl[2 * i + 3];
       const fp = f[v], fq = f[v + 1];
       const dx = qx - px, dy = qy - py, len = Math.sqrt(dx * dx + dy * dy);
-      if ((fp + fq + len) / 2 <= max) continue; // the Lipschitz bound alone settles it, no distance needed
-      refine(g, px, py, fp, jn[v], qx, qy, fq, jn[v + 1], len, 0);
+      if ((fp + fq + len) / 2 <= run.max) continue; // the Lipschitz bound alone settles it, no distance needed
+      refine(run, g, px, py, fp, jn[v], qx, qy, fq, jn[v + 1], len, 0);
     }
     v++; // past the polyline's last vertex
   }
   if (vf.length > KEEP_POINTS) { vf = new Float64Array(1024); vj = new Int32Array(1024); } // a huge shape's scratch is not kept
-  return { max, mean: sum / samples, worstX, worstY, samples };
+  return { max: run.max, mean: sum / samples, worstX: run.worstX, worstY: run.worstY, samples };
 }
 
 /**
  * Bound f on the interval (x0, y0)→(x1, y1) of length `len` whose ends are at
- * exact distances f0, f1 from segments j0, j1 of the grid; raise `max` to the
- * bound once it is within `res` of an observed value, bisecting until then.
+ * exact distances f0, f1 from segments j0, j1 of the grid; raise `run.max` to the
+ * bound once it is within `run.res` of an observed value, bisecting until then.
  */
 function refine(
-  g: SegmentGrid, x0: number, y0: number, f0: number, j0: number,
+  run: Running, g: SegmentGrid, x0: number, y0: number, f0: number, j0: number,
   x1: number, y1: number, f1: number, j1: number, len: number, depth: number,
 ): void {
   let ub = (f0 + f1 + len) / 2; // Lipschitz
@@ -154,18 +167,19 @@ function refine(
     const c = f0 > f1 ? f0 : f1;
     if (c < ub) ub = c;
   }
-  if (ub <= max) return; // cannot raise the maximum
+  if (ub <= run.max) return; // cannot raise the maximum
   const hi = f0 > f1 ? f0 : f1;
+  const res = run.res;
   if (ub - hi <= res || len <= 2 * res || depth >= MAX_DEPTH) {
-    max = ub;
-    if (f0 >= f1) { worstX = x0; worstY = y0; } else { worstX = x1; worstY = y1; }
+    run.max = ub;
+    if (f0 >= f1) { run.worstX = x0; run.worstY = y0; } else { run.worstX = x1; run.worstY = y1; }
     return;
   }
   const xm = (x0 + x1) / 2, ym = (y0 + y1) / 2;
   const fm = g.nearestFrom(xm, ym, j0);
   const jm = g.hit;
-  refine(g, x0, y0, f0, j0, xm, ym, fm, jm, len / 2, depth + 1);
-  refine(g, xm, ym, fm, jm, x1, y1, f1, j1, len / 2, depth + 1);
+  refine(run, g, x0, y0, f0, j0, xm, ym, fm, jm, len / 2, depth + 1);
+  refine(run, g, xm, ym, fm, jm, x1, y1, f1, j1, len / 2, depth + 1);
 }
 
 /** Both directions between shapes `a` and `b`; `max` is the two-sided Hausdorff bound (mm). */

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { SegmentGrid, distPointSegment } from '../../src/report/segmentGrid.js';
+import { SegmentGrid, distPointSegment } from '../../src/measure/segmentGrid.js';
 import { rng } from '../rng.js';
 
 

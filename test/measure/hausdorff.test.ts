@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { buildSegmentIndex, directedDistance, distPointSegment, hausdorff } from '../../src/report/hausdorff.js';
+import { buildSegmentIndex, directedDistance, distPointSegment, hausdorff } from '../../src/measure/hausdorff.js';
 import { rng } from '../rng.js';
 
 const F = (...v: number[]) => Float64Array.from(v);

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { svgPathProperties } from 'svg-path-properties';
 import { OP_A, OP_C, OP_L, OP_M, OP_Q, OP_Z, type PathData } from '../../src/svg/pathTypes.js';
-import { ARC_ELLIPSE, ARC_LINE, ARC_OMITTED, SampleBuffer, endpointToCenter, samplePath } from '../../src/report/sample.js';
+import { ARC_ELLIPSE, ARC_LINE, ARC_OMITTED, SampleBuffer, endpointToCenter, samplePath } from '../../src/measure/sample.js';
 
 /** Builds flat path data and the equivalent absolute `d` text side by side (no parser needed). */
 function path() {

@@ -1,10 +1,10 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { refitSvg } from '../../src/refit.js';
-import { bigDrawing } from '../../bench/bigfile.js';
+import { refitSvg } from '../src/refit.js';
+import { bigDrawing } from '../bench/bigfile.js';
 
-const root = fileURLToPath(new URL('../..', import.meta.url));
+const root = fileURLToPath(new URL('..', import.meta.url));
 
 describe('refitting on several threads', () => {
   beforeAll(() => {
@@ -15,8 +15,8 @@ describe('refitting on several threads', () => {
   it('gives exactly the text and report of the one-thread run (worker threads really used)', async () => {
     const built = `${root}/dist/src/refitParallel.js`;
     expect(existsSync(`${root}/dist/src/refitWorker.js`)).toBe(true);
-    const { refitSvgParallel, parallelMinChars } = (await import(built)) as typeof import('../../src/refitParallel.js');
-    const { refitSvg: builtRefit } = (await import(`${root}/dist/src/refit.js`)) as typeof import('../../src/refit.js');
+    const { refitSvgParallel, parallelMinChars } = (await import(built)) as typeof import('../src/refitParallel.js');
+    const { refitSvg: builtRefit } = (await import(`${root}/dist/src/refit.js`)) as typeof import('../src/refit.js');
     const text = bigDrawing(40, 2500); // about 1.9 MB: threads are forced below (by default they start at 32 MiB)
     expect(text.length).toBeLessThan(parallelMinChars(2));
     expect(parallelMinChars(1)).toBe(Infinity);

@@ -6,7 +6,7 @@
  */
 import { beforeEach, describe, expect, it, vi } from 'vitest';
 import { refitSvg } from '../../src/refit.js';
-import { compareSvg } from '../../src/report/compare.js';
+import { compareSvg } from '../../src/measure/compare.js';
 import { readSvg } from '../../src/svg/document.js';
 
 /** Sabotage switch for the wrapped fitter: which contours to move, and how. */

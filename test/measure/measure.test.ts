@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { OP_A, OP_C, OP_L, OP_M, OP_Q, OP_Z, type PathData } from '../../src/svg/pathTypes.js';
-import { measureDeviation } from '../../src/report/measure.js';
+import { measureDeviation } from '../../src/measure/measure.js';
 
 /** Flat path data from absolute commands (test builder; no parser needed). */
 function path() {

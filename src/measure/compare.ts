@@ -24,7 +24,7 @@ import type { PathData } from '../svg/pathTypes.js';
 import { DEFAULT_OPTIONS } from '../options.js';
 import { measureDeviation, compareSampled, DEFAULT_MAX_SAMPLES } from './measure.js';
 import { samplePath, sampleCount, type SampledPath } from './sample.js';
-import type { Deviation } from './types.js';
+import type { Deviation } from '../report/types.js';
 
 /** Options for {@link compareSvg}. */
 export interface CompareOptions {
