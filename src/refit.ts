@@ -7,9 +7,8 @@
  * original, independently (src/report). An element whose measured deviation is
  * over the tolerance keeps its original geometry and is flagged.
  *
- * Error budget per element (all in mm): flattening of curves 5 % of the
- * tolerance, output rounding (the writer's proven bound for the chosen number of
- * decimals), the fit gets the rest.
+ * Error budget per element: src/budget.ts splits the tolerance between
+ * flattening, rounding and fitting.
  */
 import { resolveOptions, type Options } from './options.js';
 import { readSvg, type GeometryElement, type SvgDocument } from './svg/document.js';
@@ -24,18 +23,14 @@ import type { Contour } from './geom/contour.js';
 import { fitPolyline } from './fit/fitPolyline.js';
 import { thinWithin } from './fit/prefilter.js';
 import { PathWriter } from './write/pathWriter.js';
-import { emitSegments, type EmitContour, writtenArcErrorBound } from './write/emit.js';
-import { digitsForTolerance } from './write/numbers.js';
+import { emitSegments, type EmitContour } from './write/emit.js';
+import { splitTolerance } from './budget.js';
 import { applyEdits, editStartTag, type Edit } from './write/document.js';
 import { measureDeviation } from './report/measure.js';
 import { elementTag } from './report/table.js';
 import type { ElementReport, FileReport } from './report/types.js';
 import { VERSION } from './version.js';
 
-/** Share of the tolerance given to flattening curves. */
-const FLATTEN_SHARE = 0.05;
-/** Share of the tolerance given to output rounding (the digits are chosen so the writer's bound fits). */
-const ROUNDING_SHARE = 0.05;
 
 /** Time spent per stage, milliseconds. */
 export interface StageTimes {
@@ -231,12 +226,9 @@ function refitElement(
     report.keptReason = 'coordinate system cannot be inverted';
     return { report, edits: null };
   }
-  const mmPerUnit = maxScale(writtenToMm);
-  const digits = opts.digits ?? digitsForTolerance((tol * ROUNDING_SHARE * 20) / 3, mmPerUnit);
-  const roundMm = writtenArcErrorBound(digits) * mmPerUnit;
-  const flatMm = curved ? FLATTEN_SHARE * tol : 0;
-  const fitTol = tol - flatMm - roundMm;
-  if (!(fitTol > 0.5 * tol)) {
+  const budget = splitTolerance(tol, { curved, mmPerUnit: maxScale(writtenToMm), digits: opts.digits });
+  const { digits, flattenMm: flatMm, fitMm: fitTol } = budget;
+  if (!budget.fits) {
     report.keptReason = `too few decimals (${digits}) for the tolerance`;
     return { report, edits: null };
   }
