@@ -54,6 +54,6 @@ export function formatComparison(c: Comparison, opts: TableOptions, names: { a: 
   );
   const t = c.totals;
   const verdict = t.withinTolerance ? paint('within tolerance', 'good', opts.color) : paint('NOT within tolerance', 'bad', opts.color);
-  lines.push(`${t.pairs} pairs, ${t.overTolerance} over ${formatMmValue(tol)} mm, largest ${formatMmValue(t.maxPairDeviation)} mm: ${verdict}`);
+  lines.push(`${t.pairs} pair${t.pairs === 1 ? "" : "s"}, ${t.overTolerance} over ${formatMmValue(tol)} mm, largest ${formatMmValue(t.maxPairDeviation)} mm: ${verdict}`);
   return `${lines.join('\n')}\n`;
 }

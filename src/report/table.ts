@@ -7,6 +7,7 @@
  * The grid helper {@link formatGrid} is shared with the comparison table
  * (./compareTable.ts).
  */
+import { isOverTolerance } from './status.js';
 import type { ElementReport, FileReport } from './types.js';
 
 /** Options for the tables. */
@@ -108,7 +109,7 @@ export function commandsText(counts: Record<string, number>): string {
 }
 
 function overTolerance(e: ElementReport): boolean {
-  return e.kept && (e.keptReason?.startsWith('measured deviation') ?? false);
+  return isOverTolerance(e);
 }
 
 function elementRow(e: ElementReport, tol: number): Cell[] {
@@ -184,8 +185,8 @@ export function formatTable(report: FileReport, opts: TableOptions): string {
     ? paint('within tolerance', 'good', opts.color)
     : paint('NOT within tolerance (some kept unchanged)', 'bad', opts.color);
   lines.push(
-    `total: ${t.elements} elements, ${t.rewritten} rewritten, ${t.kept} kept; ` +
-      `${t.commandsBefore} commands → ${t.segmentsAfter.arcs} arcs + ${t.segmentsAfter.lines} lines`,
+    `total: ${t.elements} element${t.elements === 1 ? '' : 's'}, ${t.rewritten} rewritten, ${t.kept} kept; ` +
+      `${t.commandsBefore} commands → ${t.segmentsAfter.arcs} arc${t.segmentsAfter.arcs === 1 ? '' : 's'} + ${t.segmentsAfter.lines} line${t.segmentsAfter.lines === 1 ? '' : 's'}`,
     `max deviation ${formatMmValue(t.maxDeviation)} mm of ${formatMmValue(tol)} mm: ${verdict}`,
   );
   return `${lines.join('\n')}\n`;

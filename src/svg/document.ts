@@ -77,6 +77,10 @@ export interface GeometryElement {
   reason: string | null;
   /** Most a copy drawn by `<use>` enlarges it, in mm (1 when it has no larger copy; ./copies.ts). */
   copyScale: number;
+  /** Id of the nearest ancestor `<g>` that has one (a layer or group), or null. */
+  group: string | null;
+  /** Namespace prefixes in scope at the element ('' = default namespace) → URI; shared, do not modify. */
+  namespaces: Readonly<Record<string, string>>;
 }
 
 /** A read document: the original text and what we found in it. */
@@ -138,6 +142,8 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
   const geomAt: number[] = [];
   /** Namespace bindings in scope at each depth ('' = default namespace); shared with the parent unless changed. */
   const nsStack: Record<string, string>[] = [];
+  /** Id of the nearest `<g>` with an id at or above each depth. */
+  const groupStack: (string | null)[] = [];
   const rootNs = Object.assign(Object.create(null) as Record<string, string>, { xml: XML_NS, '': '' });
   let depth = 0;
   let count = 0;
@@ -272,6 +278,8 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
         rewritable: reason === null,
         reason,
         copyScale: 1,
+        group: depth > 0 ? groupStack[depth - 1] : null,
+        namespaces: ns,
       });
     }
     copies.open(index, depth, isSvg ? local : null, id, at, ctm, parentCtm, ns, w, h);
@@ -289,6 +297,7 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
     labels[depth] = label;
     geomAt[depth] = g;
     nsStack[depth] = ns;
+    groupStack[depth] = isSvg && local === 'g' && id !== null ? id : depth > 0 ? groupStack[depth - 1] : null;
     depth++;
   });
 
