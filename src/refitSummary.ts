@@ -81,7 +81,7 @@ export function summarise(
   }
   return {
     tool: 'arcspline', version: VERSION, file, toleranceMm: tol,
-    bytesIn: utf8Length(input), bytesOut: utf8Length(output), timeMs,
+    bytesIn: Buffer.byteLength(input), bytesOut: Buffer.byteLength(output), timeMs,
     elements,
     totals: {
       elements: elements.length, rewritten, kept: elements.length - rewritten, commandsBefore,
@@ -89,22 +89,4 @@ export function summarise(
     },
     warnings,
   };
-}
-
-/**
- * UTF-8 length of a string in bytes, without encoding it (RFC 3629 §3); a lone
- * surrogate counts as the 3 bytes of U+FFFD it is written as.
- */
-export function utf8Length(s: string): number {
-  let n = 0;
-  for (let i = 0; i < s.length; i++) {
-    const c = s.charCodeAt(i);
-    if (c < 0x80) n += 1;
-    else if (c < 0x800) n += 2;
-    else if (c >= 0xd800 && c <= 0xdbff && i + 1 < s.length && (s.charCodeAt(i + 1) & 0xfc00) === 0xdc00) {
-      n += 4;
-      i++;
-    } else n += 3;
-  }
-  return n;
 }
