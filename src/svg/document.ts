@@ -43,6 +43,7 @@ import { parsePreserveAspectRatio, parseViewBox, rootToMm, viewBoxTransform } fr
 import { errorAt, SvgInputError } from './errors.js';
 import { createEntityGuard, XML_LIMITS } from './xmlSafety.js';
 import { CopyRecorder, MAX_CHAIN } from './copies.js';
+import { declaredStyle } from './presentation.js';
 
 /** The SVG namespace URI. */
 export const SVG_NS = 'http://www.w3.org/2000/svg';
@@ -81,6 +82,8 @@ export interface GeometryElement {
   group: string | null;
   /** Namespace prefixes in scope at the element ('' = default namespace) → URI; shared, do not modify. */
   namespaces: Readonly<Record<string, string>>;
+  /** stroke, fill and stroke-width as its ancestors set them (./presentation.ts); shared, do not modify. */
+  inheritedStyle: Readonly<Record<string, string>>;
 }
 
 /** A read document: the original text and what we found in it. */
@@ -144,6 +147,9 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
   const nsStack: Record<string, string>[] = [];
   /** Id of the nearest `<g>` with an id at or above each depth. */
   const groupStack: (string | null)[] = [];
+  /** Inherited drawing properties at each depth (shared with the parent unless the element declares one). */
+  const styleStack: Readonly<Record<string, string>>[] = [];
+  const NO_STYLE: Readonly<Record<string, string>> = Object.freeze({});
   const rootNs = Object.assign(Object.create(null) as Record<string, string>, { xml: XML_NS, '': '' });
   let depth = 0;
   let count = 0;
@@ -280,6 +286,7 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
         copyScale: 1,
         group: depth > 0 ? groupStack[depth - 1] : null,
         namespaces: ns,
+        inheritedStyle: depth > 0 ? styleStack[depth - 1] : NO_STYLE,
       });
     }
     copies.open(index, depth, isSvg ? local : null, id, at, ctm, parentCtm, ns, w, h);
@@ -298,6 +305,9 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
     geomAt[depth] = g;
     nsStack[depth] = ns;
     groupStack[depth] = isSvg && local === 'g' && id !== null ? id : depth > 0 ? groupStack[depth - 1] : null;
+    const parentStyle = depth > 0 ? styleStack[depth - 1] : NO_STYLE;
+    const ownStyle = isSvg ? declaredStyle(at) : null;
+    styleStack[depth] = ownStyle ? { ...parentStyle, ...ownStyle } : parentStyle;
     depth++;
   });
 
