@@ -98,24 +98,24 @@ export function refitElement(
   times.parse += now() - t;
   if (!p || p.ops.length === 0) return null;
   const report = baseReport(el, p);
-  const kept = (reason: Parameters<typeof setUnchanged>[1], message: string, fitted: FittedElement | null = null): ElementResult => {
+  const unchanged = (reason: Parameters<typeof setUnchanged>[1], message: string, fitted: FittedElement | null = null): ElementResult => {
     setUnchanged(report, reason, message);
     if (fitted) setContourOutcomes(fitted, report.status, reason);
     return { report, edits: null, fitted, droppedEditorAttrs: [] };
   };
   if (EXACT_SHAPES.has(el.name) && !opts.shapesAsPaths && !opts.bakeTransforms) {
-    return kept('exact-shape', 'an exact shape already');
+    return unchanged('exact-shape', 'an exact shape already');
   }
   // A copy drawn larger by <use> magnifies any deviation: fit and check within the tolerance over that factor.
   const tol = opts.tolerance / Math.max(1, el.copyScale);
   // Where the written coordinates live: the element's own user units, or root user units when baking.
   const writtenToMm: Matrix = opts.bakeTransforms ? doc.rootToMm : el.toMm;
   const mmToLocal = invert(new Float64Array(6), writtenToMm);
-  if (!mmToLocal) return kept('cannot-invert', 'coordinate system cannot be inverted');
+  if (!mmToLocal) return unchanged('cannot-invert', 'coordinate system cannot be inverted');
   t = now();
   const model = drawingElementFromSvg(el, p, tol, maxScale(writtenToMm), opts.digits);
   times.flatten += now() - t;
-  if (!('contours' in model)) return kept(model.reason, model.message);
+  if (!('contours' in model)) return unchanged(model.reason, model.message);
   t = now();
   const fitted = fitElement(model, opts.cornerAngle);
   times.fit += now() - t;
@@ -128,20 +128,20 @@ export function refitElement(
   // Already as short as it can be: only lines and arcs, and no fewer drawing commands after fitting.
   if (!model.curved && el.name === 'path' && drawingCommands(written) >= drawingCommands(p)) {
     report.segmentsAfter = { arcs: 0, lines: 0 };
-    return kept('no-shorter', 'already no longer than a refit', fitted);
+    return unchanged('no-shorter', 'already no longer than a refit', fitted);
   }
   t = now();
   try {
     report.deviation = measureDeviation(p, el.toMm, written, writtenToMm, tol);
   } catch (e) {
     times.measure += now() - t;
-    return kept('cannot-measure', `cannot measure: ${(e as Error).message}`, fitted);
+    return unchanged('cannot-measure', `cannot measure: ${(e as Error).message}`, fitted);
   }
   times.measure += now() - t;
-  if (written.error) return kept('unreadable-output', `internal: written path data did not re-read (${written.error.message})`, fitted);
-  if (!report.deviation) return kept('nothing-to-measure', 'nothing to measure', fitted);
+  if (written.error) return unchanged('unreadable-output', `internal: written path data did not re-read (${written.error.message})`, fitted);
+  if (!report.deviation) return unchanged('nothing-to-measure', 'nothing to measure', fitted);
   if (!(report.deviation.max <= tol)) {
-    return kept('over-tolerance', `measured deviation ${report.deviation.max.toPrecision(3)} mm is over the tolerance`, fitted);
+    return unchanged('over-tolerance', `measured deviation ${report.deviation.max.toPrecision(3)} mm is over the tolerance`, fitted);
   }
   setRefitted(report);
   const { edits, droppedEditorAttrs } = svgElementEdits(doc, el, d, opts.bakeTransforms);
