@@ -7,7 +7,7 @@
  * import { refitSvg, parseToleranceText } from 'arcspline';
  *
  * const text = await readFile('part.svg', 'utf8');
- * const { text: out, report } = refitSvg(text, { tolerance: parseToleranceText('0.05mm') }, 'part.svg');
+ * const { text: out, report } = refitSvg(text, { tolerance: '0.05mm' }, 'part.svg');
  * if (!report.totals.withinTolerance) console.warn('some elements kept unchanged');
  * await writeFile('part.fit.svg', out);
  * ```
@@ -20,9 +20,9 @@
 /**
  * Refit every curve of an SVG document with circular arcs and lines within
  * `options.tolerance` (mm), and measure the result.
- * `refitSvg(text: string, options?: Partial<Options>, file?: string | null): RefitResult`;
+ * `refitSvg(text: string, options?: ArcsplineOptions, file?: string | null): RefitResult`;
  * throws SvgInputError for text that is not a readable SVG document and
- * OptionError for a bad option value.
+ * OptionError for a bad option value or an unknown option (naming the closest one).
  */
 export { refitSvg } from './refit.js';
 export type { RefitResult, StageTimes } from './refit.js';
@@ -51,7 +51,9 @@ export { arcGeometry } from './fit/segment.js';
 export type { ArcGeometry, Segment } from './fit/segment.js';
 
 /** The report's shape (also schema/report.schema.json); distances in mm. */
-export type { Deviation, ElementReport, FileReport } from './report/types.js';
+export type { Deviation, ElementReport, FileReport, OutcomeReason, OutcomeStatus } from './report/types.js';
+/** Verdicts read off the statuses: `isOverTolerance(element)`, `withinTolerance(elements)`. */
+export { isOverTolerance, withinTolerance } from './report/status.js';
 
 /**
  * The independent deviation measurement:

@@ -21,6 +21,14 @@ export interface Options {
   maxInputBytes: number;
 }
 
+/**
+ * Options as a caller gives them: every field optional (defaults in
+ * DEFAULT_OPTIONS), `tolerance` also as a length with a unit ("0.05mm",
+ * "0.002in", "0.2px"; a bare number or numeric string is mm). An unknown key
+ * is refused with the closest known option named.
+ */
+export type ArcsplineOptions = Partial<Omit<Options, 'tolerance'>> & { tolerance?: number | string };
+
 export interface OptionDoc {
   meaning: string;
   unit: string;
@@ -51,10 +59,49 @@ export class OptionError extends Error {
   override name = 'OptionError';
 }
 
-/** Fill in defaults (with ??, so 0 and false pass) and validate. */
-export function resolveOptions(partial: Partial<Options> = {}): Options {
+/** Edits needed to turn `a` into `b` (insert, delete, substitute one character). */
+function editDistance(a: string, b: string): number {
+  const row = Array.from({ length: b.length + 1 }, (_, j) => j);
+  for (let i = 1; i <= a.length; i++) {
+    let diag = row[0];
+    row[0] = i;
+    for (let j = 1; j <= b.length; j++) {
+      const up = row[j];
+      row[j] = Math.min(row[j] + 1, row[j - 1] + 1, diag + (a[i - 1] === b[j - 1] ? 0 : 1));
+      diag = up;
+    }
+  }
+  return row[b.length];
+}
+
+/** The known option closest to a misspelt key (case ignored), or null when none is near. */
+export function closestOption(key: string): keyof Options | null {
+  let best: keyof Options | null = null, bestD = Infinity;
+  for (const k of Object.keys(DEFAULT_OPTIONS) as (keyof Options)[]) {
+    const d = editDistance(key.toLowerCase(), k.toLowerCase());
+    if (d < bestD) {
+      bestD = d;
+      best = k;
+    }
+  }
+  return bestD <= Math.max(2, Math.floor(key.length / 3)) ? best : null;
+}
+
+/**
+ * Fill in defaults (with ??, so 0 and false pass) and validate.
+ * @throws OptionError for a bad value or an unknown key (naming the closest known option)
+ */
+export function resolveOptions(input: ArcsplineOptions = {}): Options {
+  if (input === null || typeof input !== 'object') throw new OptionError(`options must be an object, got ${String(input)}`);
+  for (const key of Object.keys(input)) {
+    if (Object.prototype.hasOwnProperty.call(DEFAULT_OPTIONS, key)) continue;
+    const near = closestOption(key);
+    throw new OptionError(`unknown option "${key}"${near ? `; did you mean "${near}"?` : `; known options: ${Object.keys(DEFAULT_OPTIONS).join(', ')}`}`);
+  }
+  const partial = input as Partial<Options>;
+  const tolerance = typeof input.tolerance === 'string' ? parseToleranceText(input.tolerance) : input.tolerance;
   const o: Options = {
-    tolerance: partial.tolerance ?? DEFAULT_OPTIONS.tolerance,
+    tolerance: tolerance ?? DEFAULT_OPTIONS.tolerance,
     cornerAngle: partial.cornerAngle ?? DEFAULT_OPTIONS.cornerAngle,
     bakeTransforms: partial.bakeTransforms ?? DEFAULT_OPTIONS.bakeTransforms,
     shapesAsPaths: partial.shapesAsPaths ?? DEFAULT_OPTIONS.shapesAsPaths,

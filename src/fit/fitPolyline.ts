@@ -14,6 +14,7 @@ import { findCorners } from './corners.js';
 import type { Piece } from './piece.js';
 import { findRuns } from './runs.js';
 import { fitStretches } from './stretches.js';
+import { FIT_ARC_SHARE, FIT_THIN_SHARE } from '../budget.js';
 
 export interface FitOptions {
   /** Largest allowed two-sided distance between input and fit (same units as xy, normally mm). */
@@ -36,10 +37,9 @@ export interface FitResult {
   breaks: number;
 }
 
-/** Share of the tolerance spent on thinning the input before fitting. */
-const THIN_SHARE = 0.05;
-/** Share of the tolerance the arcs may use (the rest is margin for rounding in the checks). */
-const FIT_SHARE = 0.94;
+/** Shares of the tolerance for thinning and for the arcs: src/budget.ts owns the split. */
+const THIN_SHARE = FIT_THIN_SHARE;
+const FIT_SHARE = FIT_ARC_SHARE;
 
 /** Fit `xy` (flat x,y pairs) with arcs and lines. */
 export function fitPolyline(xy: Float64Array, opts: FitOptions): FitResult {

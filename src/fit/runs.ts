@@ -5,6 +5,7 @@
  * curved stretches between them are fitted to meet them tangentially, so a
  * rounded rectangle comes back as four lines and four arcs.
  */
+import { RUN_MIN_LENGTH_TOLERANCES, RUN_STRAIGHTNESS_SHARE } from '../budget.js';
 
 /** A straight run on the thinned edge j → j+1: the line through (px, py) with unit direction (dx, dy). */
 export interface Run {
@@ -17,10 +18,9 @@ export interface Run {
   tEnd: number;
 }
 
-/** Shortest run, in tolerances. */
-const RUN_MIN_LENGTH = 4;
-/** Input vertices of a run lie this close to its line, as a fraction of the tolerance. */
-const RUN_STRAIGHTNESS = 0.02;
+/** Shortest run, in tolerances; how straight a run's input vertices lie, as a fraction of the tolerance (src/budget.ts). */
+const RUN_MIN_LENGTH = RUN_MIN_LENGTH_TOLERANCES;
+const RUN_STRAIGHTNESS = RUN_STRAIGHTNESS_SHARE;
 
 /** Interior input vertices needed to call a run of several input edges straight. */
 const RUN_MIN_VERTICES = 8;

@@ -287,7 +287,7 @@ export function mmToPx(frame: PreviewFrame, x: number, y: number): [number, numb
  * @returns PNG bytes, `frame.width` × `frame.height` px
  * @throws SvgInputError when either text is not a readable SVG document
  */
-export async function renderPreview(original: string, result: string, opts: PreviewOptions = {}): Promise<Buffer> {
+export async function renderPreview(original: string, result: string, opts: PreviewOptions = {}): Promise<Uint8Array> {
   const { svg } = buildPreviewSvg(original, result, opts);
   const { default: sharp } = await import('sharp');
   // density 72: one px of the overlay's unitless size is one pixel.

@@ -7,6 +7,7 @@
  * The grid helper {@link formatGrid} is shared with the comparison table
  * (./compareTable.ts).
  */
+import { isOverTolerance } from './status.js';
 import type { ElementReport, FileReport } from './types.js';
 
 /** Options for the tables. */
@@ -123,7 +124,7 @@ export function keptReasonText(reason: string | null): string {
 }
 
 function overTolerance(e: ElementReport): boolean {
-  return e.kept && (e.keptReason?.startsWith('measured deviation') ?? false);
+  return isOverTolerance(e);
 }
 
 function elementRow(e: ElementReport, tol: number): Cell[] {

@@ -18,6 +18,28 @@ export interface Deviation {
   worstUser: [number, number];
 }
 
+/**
+ * What happened to an element (or a contour): rewritten by the refit, kept as
+ * written before anything was fitted, or reverted to the original after the
+ * refit was written and checked.
+ */
+export type OutcomeStatus = 'refitted' | 'kept' | 'reverted';
+
+/**
+ * Why an element was kept or reverted (null when refitted):
+ * - kept: `exact-shape` (circle, ellipse, rect or line, exact already), `not-drawn`
+ *   (not drawn where it stands, or cannot be: the reader's message says which),
+ *   `cannot-invert` (its coordinate system is singular), `too-few-digits` (fixed
+ *   decimals leave the fit too little of the tolerance), `cannot-flatten`,
+ *   `no-shorter` (lines only and the refit is no shorter);
+ * - reverted: `over-tolerance` (the measured deviation is over the tolerance),
+ *   `cannot-measure`, `unreadable-output` (the written path data did not read
+ *   back: an internal fault), `nothing-to-measure`.
+ */
+export type OutcomeReason =
+  | 'exact-shape' | 'not-drawn' | 'cannot-invert' | 'too-few-digits' | 'cannot-flatten' | 'no-shorter'
+  | 'over-tolerance' | 'cannot-measure' | 'unreadable-output' | 'nothing-to-measure';
+
 export interface ElementReport {
   /** Position among all elements of the document, in document order (root svg = 0). */
   index: number;
@@ -27,14 +49,18 @@ export interface ElementReport {
   ancestors: string;
   /** Drawing commands before, by source command letter (polyline, polygon: their equivalent path's M, L, Z), or {element name: 1} for the other shapes. */
   commandsBefore: Record<string, number>;
-  /** Straight moves a controller would need to follow the original within the same tolerance. */
+  /** Straight moves a controller would need to follow the original within the same tolerance (a closing line counts as one). */
   straightMovesNeeded: number;
+  /** Pieces written: arcs, and lines including the closing lines drawn by Z. */
   segmentsAfter: { arcs: number; lines: number };
   /** Measured on the written output; null when nothing could be measured (empty geometry). */
   deviation: Deviation | null;
-  /** True when the original geometry was written back unchanged. */
+  /** True when the original geometry was written back unchanged (status is not 'refitted'). */
   kept: boolean;
+  /** Why it was kept or reverted, for people (null when refitted); `reason` is the same as a code. */
   keptReason: string | null;
+  status: OutcomeStatus;
+  reason: OutcomeReason | null;
 }
 
 export interface FileReport {

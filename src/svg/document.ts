@@ -43,6 +43,7 @@ import { parsePreserveAspectRatio, parseViewBox, rootToMm, viewBoxTransform } fr
 import { errorAt, SvgInputError } from './errors.js';
 import { createEntityGuard, XML_LIMITS } from './xmlSafety.js';
 import { CopyRecorder, MAX_CHAIN } from './copies.js';
+import { declaredStyle } from './presentation.js';
 
 /** The SVG namespace URI. */
 export const SVG_NS = 'http://www.w3.org/2000/svg';
@@ -77,6 +78,12 @@ export interface GeometryElement {
   reason: string | null;
   /** Most a copy drawn by `<use>` enlarges it, in mm (1 when it has no larger copy; ./copies.ts). */
   copyScale: number;
+  /** Id of the nearest ancestor `<g>` that has one (a layer or group), or null. */
+  group: string | null;
+  /** Namespace prefixes in scope at the element ('' = default namespace) → URI; shared, do not modify. */
+  namespaces: Readonly<Record<string, string>>;
+  /** stroke, fill and stroke-width as its ancestors set them (./presentation.ts); shared, do not modify. */
+  inheritedStyle: Readonly<Record<string, string>>;
 }
 
 /** A read document: the original text and what we found in it. */
@@ -138,6 +145,11 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
   const geomAt: number[] = [];
   /** Namespace bindings in scope at each depth ('' = default namespace); shared with the parent unless changed. */
   const nsStack: Record<string, string>[] = [];
+  /** Id of the nearest `<g>` with an id at or above each depth. */
+  const groupStack: (string | null)[] = [];
+  /** Inherited drawing properties at each depth (shared with the parent unless the element declares one). */
+  const styleStack: Readonly<Record<string, string>>[] = [];
+  const NO_STYLE: Readonly<Record<string, string>> = Object.freeze({});
   const rootNs = Object.assign(Object.create(null) as Record<string, string>, { xml: XML_NS, '': '' });
   let depth = 0;
   let count = 0;
@@ -272,6 +284,9 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
         rewritable: reason === null,
         reason,
         copyScale: 1,
+        group: depth > 0 ? groupStack[depth - 1] : null,
+        namespaces: ns,
+        inheritedStyle: depth > 0 ? styleStack[depth - 1] : NO_STYLE,
       });
     }
     copies.open(index, depth, isSvg ? local : null, id, at, ctm, parentCtm, ns, w, h);
@@ -289,6 +304,10 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
     labels[depth] = label;
     geomAt[depth] = g;
     nsStack[depth] = ns;
+    groupStack[depth] = isSvg && local === 'g' && id !== null ? id : depth > 0 ? groupStack[depth - 1] : null;
+    const parentStyle = depth > 0 ? styleStack[depth - 1] : NO_STYLE;
+    const ownStyle = isSvg ? declaredStyle(at) : null;
+    styleStack[depth] = ownStyle ? { ...parentStyle, ...ownStyle } : parentStyle;
     depth++;
   });
 

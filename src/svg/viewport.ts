@@ -113,6 +113,12 @@ export interface RootFrame {
 const DEFAULT_W = 300;
 const DEFAULT_H = 150;
 
+/** "0.2646 mm (1 CSS px)": a user-unit size as a person reads it, to 4 significant digits. */
+export function assumedSizeText(mmPerUnit: number): string {
+  const mm = `${+mmPerUnit.toPrecision(4)} mm`;
+  return Math.abs(mmPerUnit - mmPerPx) <= 1e-12 * mmPerPx ? `${mm} (1 CSS px)` : mm;
+}
+
 /** An absolute root width/height in px, or null (missing, `auto`, %, ≤ 0 or bad). */
 function absolutePx(attr: string | undefined, name: string, notes: string[]): number | null {
   if (attr === undefined) return null;
@@ -171,7 +177,8 @@ export function rootToMm(
   }
   if (w === null && h === null) {
     const k = assumedMmPerUnit;
-    notes.push(`no physical size stated (width/height missing, auto or %): assuming ${k} mm per user unit`);
+    notes.push(`no physical size stated (width/height missing, auto or %): assuming ${assumedSizeText(k)} per user unit ` +
+      '(set it with --unitless-size, or the library option assumedMmPerUnit)');
     if (vb !== null) {
       return { matrix: matrix(k, 0, 0, k, -vb[0] * k, -vb[1] * k), physical: false, viewportW: vb[2], viewportH: vb[3], warning: warn() };
     }

@@ -30,12 +30,11 @@ import { arcGeometry, type Segment } from '../fit/segment.js';
 import { transformArcShape, type ArcShape } from '../geom/ellipseImage.js';
 import { ARC_CENTER_LENGTH, ARC_ELLIPSE, arcToCenterInto } from '../geom/arcCenter.js';
 import { applyX, applyY, invert } from '../svg/matrix.js';
-import { MAX_DIGITS, angleDigits, roundTo, roundingErrorMm } from './numbers.js';
+import { MAX_DIGITS, angleDigits, roundTo } from './numbers.js';
+import { writtenRoundingMm } from '../budget.js';
 
 /** A sweep within this many radians of 2π counts as a full turn and is split. */
 export const FULL_TURN_EPS = 1e-9;
-/** Written arcs may be off by this many point-rounding bounds (a 270° arc amplifies end-point rounding ≈ 2.4×). */
-export const ARC_ERROR_FACTOR = 3;
 /** Most decimals a radius gets beyond `digits`; PathWriter's default radiusDigits matches. */
 export const EXTRA_RADIUS_DIGITS = 6;
 /** Most times an arc is halved because its written form is off by too much. */
@@ -63,10 +62,11 @@ export interface EmitStats {
 
 /**
  * Largest distance (local user units) between a written arc as a reader draws
- * it and the fitted arc, when coordinates have `digits` decimals.
+ * it and the fitted arc, when coordinates have `digits` decimals: the budget's
+ * rounding bound (src/budget.ts), which this writer enforces arc by arc.
  */
 export function writtenArcErrorBound(digits: number): number {
-  return ARC_ERROR_FACTOR * roundingErrorMm(digits, 1);
+  return writtenRoundingMm(digits, 1);
 }
 
 const DEG = Math.PI / 180;

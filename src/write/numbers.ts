@@ -76,23 +76,23 @@ export function roundingErrorMm(digits: number, mmPerUnit: number): number {
 
 /**
  * Fewest decimals such that rounding a point's two coordinates moves it by at
- * most 1/20 of the tolerance: roundingErrorMm(digits, mmPerUnit) ≤ tolMm / 20.
- * (Design choice: 1/20 leaves 95 % of the tolerance to the fit itself.)
+ * most `maxMoveMm`: roundingErrorMm(digits, mmPerUnit) ≤ maxMoveMm. How much of
+ * the tolerance that may be is the budget's choice (src/budget.ts).
  *
- * @param tolMm tolerance in mm, > 0
+ * @param maxMoveMm largest allowed move of a rounded point, mm, > 0
  * @param mmPerUnit millimetres per user unit, > 0
- * @returns decimals in [0, MAX_DIGITS]; e.g. 0.1 mm at CSS px (25.4/96 mm) → 2
+ * @returns decimals in [0, MAX_DIGITS]; e.g. 0.005 mm at CSS px (25.4/96 mm) → 2
  */
-export function digitsForTolerance(tolMm: number, mmPerUnit: number): number {
-  if (!(tolMm > 0) || !Number.isFinite(tolMm)) throw new RangeError(`tolerance must be a positive number of mm, got ${tolMm}`);
+export function digitsForRounding(maxMoveMm: number, mmPerUnit: number): number {
+  if (!(maxMoveMm > 0) || !Number.isFinite(maxMoveMm)) throw new RangeError(`rounding allowance must be a positive number of mm, got ${maxMoveMm}`);
   if (!(mmPerUnit > 0) || !Number.isFinite(mmPerUnit)) throw new RangeError(`mm per unit must be positive, got ${mmPerUnit}`);
-  const target = tolMm / 20;
+  const target = maxMoveMm;
   let d = Math.max(0, Math.ceil(Math.log10((Math.SQRT2 * 0.5 * mmPerUnit) / target)));
   // log10 can land one off either way at exact powers of ten; settle on the true minimum.
   while (d > 0 && roundingErrorMm(d - 1, mmPerUnit) <= target) d--;
   while (roundingErrorMm(d, mmPerUnit) > target) d++;
   if (d > MAX_DIGITS) {
-    throw new RangeError(`tolerance ${tolMm} mm needs ${d} decimals at ${mmPerUnit} mm per unit (max ${MAX_DIGITS})`);
+    throw new RangeError(`moving a rounded point by at most ${maxMoveMm} mm needs ${d} decimals at ${mmPerUnit} mm per unit (max ${MAX_DIGITS})`);
   }
   return d;
 }

@@ -6,6 +6,7 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { existsSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { setUnchanged } from '../../src/report/status.js';
 import type { RefitResult } from '../../src/refit.js';
 import { EXIT_INTERNAL, EXIT_TOLERANCE } from '../../src/cli/exitCodes.js';
 import { run, scratch, SMALL } from './helpers.js';
@@ -34,9 +35,8 @@ afterEach(() => {
 /** The element kept with its original geometry because its measured deviation was over the tolerance. */
 function overTolerance(r: RefitResult): RefitResult {
   const e = r.report.elements[0];
-  e.kept = true;
   e.deviation = { ...e.deviation!, max: 2 * r.report.toleranceMm };
-  e.keptReason = `measured deviation ${e.deviation.max.toPrecision(3)} mm is over the tolerance`;
+  setUnchanged(e, 'over-tolerance', `measured deviation ${e.deviation.max.toPrecision(3)} mm is over the tolerance`);
   r.report.totals.withinTolerance = false;
   return r;
 }

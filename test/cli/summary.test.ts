@@ -5,7 +5,7 @@ import type { ElementReport, FileReport } from '../../src/report/types.js';
 function element(over: Partial<ElementReport>): ElementReport {
   return {
     index: 3, name: 'path', id: 'outline', ancestors: 'svg > g#cut', commandsBefore: { C: 1800, M: 1 }, straightMovesNeeded: 500,
-    segmentsAfter: { arcs: 40, lines: 5 }, kept: false, keptReason: null,
+    segmentsAfter: { arcs: 40, lines: 5 }, kept: false, keptReason: null, status: 'refitted', reason: null,
     deviation: { max: 0.0864, originalToResult: 0.0864, resultToOriginal: 0.05, mean: 0.02, worstMm: [1, 2], worstUser: [1, 2] },
     ...over,
   };
@@ -26,7 +26,7 @@ function report(elements: ElementReport[], warnings: string[] = []): FileReport 
 
 describe('summaryLine', () => {
   it('counts the commands replaced, of the total the report and the table count (every element)', () => {
-    const kept = element({ index: 5, id: null, name: 'rect', commandsBefore: { rect: 1 }, kept: true, keptReason: 'exact shape (kept as written)', deviation: null });
+    const kept = element({ index: 5, id: null, name: 'rect', commandsBefore: { rect: 1 }, kept: true, keptReason: 'an exact shape already', status: 'kept', reason: 'exact-shape', deviation: null });
     const r = report([element({}), kept]);
     expect(r.totals.commandsBefore).toBe(1802);
     expect(summaryLine('bracket.svg', r)).toBe(
@@ -36,7 +36,7 @@ describe('summaryLine', () => {
   });
 
   it('says so when nothing was refitted or there was nothing to refit, and counts elements over the tolerance', () => {
-    const over = element({ kept: true, keptReason: 'measured deviation 0.2 mm is over the tolerance', deviation: { ...element({}).deviation!, max: 0.2 } });
+    const over = element({ kept: true, keptReason: 'measured deviation 0.2 mm is over the tolerance', status: 'reverted', reason: 'over-tolerance', deviation: { ...element({}).deviation!, max: 0.2 } });
     expect(summaryLine('f', report([over]))).toBe('f: nothing refitted (1 element kept as written), 32.5 kB → 2.0 kB; 1 element over the tolerance kept unchanged');
     expect(summaryLine('f', report([]))).toBe('f: no paths or shapes to refit, 32.5 kB → 2.0 kB');
     expect(problemLines('f', report([over], ['odd thing\nsecond line']))).toEqual([

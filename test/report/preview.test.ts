@@ -16,7 +16,7 @@ const original = readFileSync(new URL('../../samples/bracket.svg', import.meta.u
 const refit = refitSvg(original, {}, 'bracket.svg');
 
 interface Pixels { width: number; height: number; data: Buffer }
-async function decode(png: Buffer): Promise<Pixels> {
+async function decode(png: Uint8Array): Promise<Pixels> {
   const { data, info } = await sharp(png).removeAlpha().raw().toBuffer({ resolveWithObject: true });
   return { width: info.width, height: info.height, data };
 }

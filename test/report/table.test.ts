@@ -4,6 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { refitSvg } from '../../src/refit.js';
 import { commandsText, countOf, elementLabel, formatMmValue, formatTable, keptReasonText } from '../../src/report/table.js';
 import type { FileReport } from '../../src/report/types.js';
+import { setUnchanged } from '../../src/report/status.js';
 
 const report = refitSvg(readFileSync(new URL('../../samples/bracket.svg', import.meta.url), 'utf8'), {}, 'bracket.svg').report;
 // ECMA-48 control sequence introducer (ESC [).
@@ -12,9 +13,8 @@ const ESC = /\x1b\[/;
 function overReport(): FileReport {
   const r: FileReport = structuredClone(report);
   const e = r.elements.find((x) => x.id === 'slot')!;
-  e.kept = true;
   e.deviation!.max = 0.31;
-  e.keptReason = 'measured deviation 0.310 mm is over the tolerance';
+  setUnchanged(e, 'over-tolerance', 'measured deviation 0.310 mm is over the tolerance');
   r.totals.withinTolerance = false;
   return r;
 }
@@ -50,7 +50,7 @@ describe('formatTable', () => {
     expect(cells[9]).toBe('refit');
     const hole = s.split('\n').find((l) => l.startsWith('hole-left '))!;
     expect(hole.split(/\s{2,}/)[9]).toBe('kept');
-    expect(s).toContain('kept: exact shape: hole-left, hole-right');
+    expect(s).toContain('kept: an exact shape already: hole-left, hole-right');
     expect(s).not.toMatch(/kept.*kept/);
   });
 

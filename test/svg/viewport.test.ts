@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
-  parsePreserveAspectRatio, parseViewBox, rootToMm, viewBoxTransform,
+  assumedSizeText, parsePreserveAspectRatio, parseViewBox, rootToMm, viewBoxTransform,
 } from '../../src/svg/viewport.js';
 import { applyX, applyY } from '../../src/svg/matrix.js';
 import type { Matrix } from '../../src/svg/matrixTypes.js';
@@ -125,7 +125,7 @@ describe('rootToMm decisions', () => {
     const r = rootToMm(undefined, undefined, '10 20 200 100', undefined, 0.5);
     close(r.matrix, [0.5, 0, 0, 0.5, -5, -10], 15);
     expect(r.physical).toBe(false);
-    expect(r.warning).toMatch(/assuming 0.5 mm per user unit/);
+    expect(r.warning).toMatch(/assuming 0.5 mm per user unit \(set it with --unitless-size, or the library option assumedMmPerUnit\)/);
     expect([r.viewportW, r.viewportH]).toEqual([200, 100]);
     const pct = rootToMm('100%', 'auto', '0 0 200 100', undefined, 0.25);
     close(pct.matrix, [0.25, 0, 0, 0.25, 0, 0], 15);
@@ -134,6 +134,14 @@ describe('rootToMm decisions', () => {
     close(bare.matrix, [2, 0, 0, 2, 0, 0], 15);
     expect(bare.physical).toBe(false);
     expect(bare.warning).not.toBeNull();
+  });
+
+  it('no physical size at the CSS px default: the size is rounded and named as 1 CSS px', () => {
+    // 1 CSS px = 25.4/96 mm = 0.264583… mm (CSS Values 3 §5.2).
+    const r = rootToMm(undefined, undefined, '0 0 10 10', undefined, 25.4 / 96);
+    expect(r.warning).toContain('assuming 0.2646 mm (1 CSS px) per user unit');
+    expect(r.warning).not.toContain('0.26458333');
+    expect(assumedSizeText(1 / 3)).toBe('0.3333 mm');
   });
 
   it('one dimension given with a viewBox: the other follows the viewBox ratio', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { angleDigits, digitsForTolerance, formatNumber, roundTo, roundingErrorMm } from '../../src/write/numbers.js';
+import { angleDigits, digitsForRounding, formatNumber, roundTo, roundingErrorMm } from '../../src/write/numbers.js';
 
 describe('formatNumber', () => {
   it('drops trailing zeros, a trailing dot and the leading zero', () => {
@@ -55,12 +55,12 @@ describe('formatNumber', () => {
   });
 });
 
-describe('digitsForTolerance', () => {
-  it('keeps the rounding of a point within 1/20 of the tolerance, with the fewest decimals', () => {
+describe('digitsForRounding', () => {
+  it('keeps the rounding of a point within the allowance, with the fewest decimals', () => {
     const units = [1, 25.4 / 96, 25.4, 0.001, 1000]; // mm, CSS px, in, µm, m (CSS Values 3 §5.2, REFERENCES.md §4.1)
     for (const mmPerUnit of units) {
       for (const tol of [1, 0.1, 0.05, 0.01, 0.001]) {
-        const d = digitsForTolerance(tol, mmPerUnit);
+        const d = digitsForRounding(tol / 20, mmPerUnit);
         expect(roundingErrorMm(d, mmPerUnit)).toBeLessThanOrEqual(tol / 20);
         if (d > 0) expect(roundingErrorMm(d - 1, mmPerUnit)).toBeGreaterThan(tol / 20);
       }
@@ -69,16 +69,16 @@ describe('digitsForTolerance', () => {
 
   it('gives hand-checked values', () => {
     // 0.1 mm at CSS px: √2·½·10^−2·0.2646 = 0.00187 ≤ 0.005, at 1 decimal 0.0187 > 0.005.
-    expect(digitsForTolerance(0.1, 25.4 / 96)).toBe(2);
+    expect(digitsForRounding(0.1 / 20, 25.4 / 96)).toBe(2);
     // 0.1 mm in mm units: 10^−d·0.7071 ≤ 0.005 → d = 3 (0.000707), d = 2 gives 0.00707.
-    expect(digitsForTolerance(0.1, 1)).toBe(3);
+    expect(digitsForRounding(0.1 / 20, 1)).toBe(3);
     // metres: 1 user unit = 1000 mm; 0.01 mm tolerance → 0.0005 mm / (0.7071·1000) → d = 7.
-    expect(digitsForTolerance(0.01, 1000)).toBe(7);
-    expect(digitsForTolerance(1000, 1)).toBe(0);
+    expect(digitsForRounding(0.01 / 20, 1000)).toBe(7);
+    expect(digitsForRounding(1000 / 20, 1)).toBe(0);
   });
 
   it('bounds the displacement of a rounded point (checked by rounding points)', () => {
-    const d = digitsForTolerance(0.05, 25.4 / 96);
+    const d = digitsForRounding(0.05 / 20, 25.4 / 96);
     const bound = roundingErrorMm(d, 25.4 / 96);
     let seed = 99;
     const rnd = (): number => ((seed = (seed * 48271) % 2147483647) / 2147483647);
@@ -92,8 +92,8 @@ describe('digitsForTolerance', () => {
   });
 
   it('rejects non-positive input', () => {
-    expect(() => digitsForTolerance(0, 1)).toThrow(/0/);
-    expect(() => digitsForTolerance(0.1, -2)).toThrow(/-2/);
+    expect(() => digitsForRounding(0 / 20, 1)).toThrow(/0/);
+    expect(() => digitsForRounding(0.1 / 20, -2)).toThrow(/-2/);
   });
 });
 

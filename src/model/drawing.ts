@@ -1,0 +1,76 @@
+/**
+ * The drawing model: what the reader found, in millimetres on the machine,
+ * independent of the file format it came from or goes to.
+ *
+ * read (src/svg) → DrawingElement (here, built by ./fromSvg.ts) → fit
+ * (./fit.ts: FittedElement) → writers: the SVG writer now (src/write), other
+ * machine formats (G-code, DXF) and a path plan next, each taking the fitted
+ * elements and their contours in mm with the element's style and group.
+ */
+import type { Segment } from '../fit/segment.js';
+import type { ToleranceSplit } from '../budget.js';
+import type { OutcomeReason, OutcomeStatus } from '../report/types.js';
+
+/** How an element is drawn: the properties a cutter or plotter maps to its operations. */
+export interface DrawingStyle {
+  /** Stroke paint as written (`#ff0000`, `red`, `none`), or null when not set. */
+  stroke: string | null;
+  /** Fill paint as written, or null when not set (SVG's initial value is black). */
+  fill: string | null;
+  /** Stroke width in mm on the machine (the element's scale applied), or null when not set. */
+  strokeWidthMm: number | null;
+}
+
+/** One contour in mm: flat x,y pairs (root viewport, y down), open or closed. */
+export interface DrawingContour {
+  xy: Float64Array;
+  closed: boolean;
+  /** Vertex indices that are tangent breaks in the source (sharp corners); absent when none are known. */
+  corners?: Uint32Array;
+}
+
+/** One source element as the model sees it. */
+export interface DrawingElement {
+  /** Position in document order (root = 0). */
+  index: number;
+  id: string | null;
+  /** Source element name (`path`, `circle`, …). */
+  name: string;
+  /** Id of the nearest enclosing group (SVG: the nearest ancestor `g` with an id), or null. */
+  group: string | null;
+  style: DrawingStyle;
+  /** Its contours in mm (a point subpath such as a pierce mark has none; see `points`). */
+  contours: DrawingContour[];
+  /** Subpaths that draw a single point, in mm, flat x,y pairs. */
+  points: Float64Array;
+  /** Whether the source has curves (Bézier or elliptical arcs) that were flattened. */
+  curved: boolean;
+  /** This element's tolerance, mm (the file's, over the largest enlargement of a copy). */
+  toleranceMm: number;
+  /** How that tolerance is split (src/budget.ts), for the writer the contours will be written by. */
+  budget: ToleranceSplit;
+}
+
+/** What became of one contour. */
+export interface ContourOutcome {
+  status: OutcomeStatus;
+  reason: OutcomeReason | null;
+}
+
+/** A contour with the arcs and lines fitted to it (mm, end to end), and its outcome. */
+export interface FittedContour {
+  contour: DrawingContour;
+  segments: Segment[];
+  /** Straight moves a controller needs to follow the contour within the element's tolerance. */
+  straightMovesNeeded: number;
+  outcome: ContourOutcome;
+}
+
+/**
+ * A fitted element: what every writer takes. Contours keep the order of the
+ * source; each writer decides how to emit `segments` (SVG arcs, G2/G3, DXF ARC).
+ */
+export interface FittedElement {
+  element: DrawingElement;
+  contours: FittedContour[];
+}
