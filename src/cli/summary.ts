@@ -4,7 +4,8 @@
  * or per element kept because the tolerance could not be met.
  */
 import type { ElementReport, FileReport } from '../report/types.js';
-import { elementTag } from '../report/table.js';
+import { countOf, elementTag } from '../report/table.js';
+import { isOverTolerance } from '../report/status.js';
 
 /** Colouring functions; identity when colour is off. */
 export interface Paint {
@@ -46,11 +47,10 @@ export function formatTolerance(v: number): string {
   return `${+v.toPrecision(6)} mm`;
 }
 
-const plural = (n: number, one: string, many = `${one}s`): string => `${n} ${n === 1 ? one : many}`;
 
 /** Elements kept unchanged because their measured deviation is over the tolerance. */
 export function overTolerance(report: FileReport): ElementReport[] {
-  return report.elements.filter((e) => e.kept && e.deviation !== null && e.deviation.max > report.toleranceMm);
+  return report.elements.filter(isOverTolerance);
 }
 
 /** Drawing commands of the rewritten elements: the ones the new segments replace (kept elements keep theirs). */
@@ -65,7 +65,7 @@ export function commandsReplaced(report: FileReport): number {
  * report and the table count it (every element), when the two differ.
  */
 export function commandsText(replaced: number, total: number): string {
-  return replaced === total ? plural(total, 'command') : `${replaced} of ${plural(total, 'command')}`;
+  return replaced === total ? countOf(total, 'command') : `${replaced} of ${countOf(total, 'command')}`;
 }
 
 /**
@@ -79,13 +79,13 @@ export function summaryLine(name: string, report: FileReport, paint: Paint = PLA
   const head = `${paint.bold(name)}:`;
   if (t.elements === 0) return `${head} no paths or shapes to refit, ${bytes}`;
   const over = overTolerance(report).length;
-  const overText = over > 0 ? paint.red(`; ${plural(over, 'element')} over the tolerance kept unchanged`) : '';
-  if (t.rewritten === 0) return `${head} nothing refitted (${plural(t.elements, 'element')} kept as written), ${bytes}${overText}`;
+  const overText = over > 0 ? paint.red(`; ${countOf(over, 'element')} over the tolerance kept unchanged`) : '';
+  if (t.rewritten === 0) return `${head} nothing refitted (${countOf(t.elements, 'element')} kept as written), ${bytes}${overText}`;
   const { arcs, lines } = t.segmentsAfter;
   const dev = `max deviation ${formatMm(t.maxDeviation)} ≤ ${formatTolerance(report.toleranceMm)}`;
   return (
-    `${head} ${commandsText(commandsReplaced(report), t.commandsBefore)} → ${plural(arcs + lines, 'segment')} (${plural(arcs, 'arc')}, ${plural(lines, 'line')})` +
-    ` in ${t.rewritten} of ${plural(t.elements, 'element')}, ${paint.green(dev)}, ${bytes}${overText}`
+    `${head} ${commandsText(commandsReplaced(report), t.commandsBefore)} → ${countOf(arcs + lines, 'segment')} (${countOf(arcs, 'arc')}, ${countOf(lines, 'line')})` +
+    ` in ${t.rewritten} of ${countOf(t.elements, 'element')}, ${paint.green(dev)}, ${bytes}${overText}`
   );
 }
 
