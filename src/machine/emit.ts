@@ -5,17 +5,21 @@
  * segment's centre and signed sweep are read off its motor (arcGeometry); the
  * flip has determinant −1, so it reverses the turning sense: a page sweep > 0
  * (from +x towards +y, y down) becomes clockwise seen from +Z, a G2. Arcs of
- * more than a half turn are written as two halves, so no written arc ever
- * starts and ends on the same point (a whole circle is two arcs) and no
- * rounding can turn a nearly closed arc into a full turn or a point.
+ * more than three quarters of a turn are written as two halves, so no written
+ * arc starts and ends on nearly the same point (its chord is at least √2·r; a
+ * whole circle is two arcs) and no rounding can turn a nearly closed arc into
+ * a full turn or a point. Consecutive arcs on the same circle (within
+ * SAME_CIRCLE_MM, the same sense) are first joined into one.
  */
 import { arcGeometry } from '../fit/segment.js';
 import type { Matrix } from '../svg/matrixTypes.js';
 import type { MachineElement } from './drawing.js';
 import type { MachineSink } from './sink.js';
 
-/** Arcs sweeping more than π + this (radians) are halved. */
-export const HALF_TURN_EPS = 1e-9;
+/** Arcs sweeping more than this (radians) are halved. */
+export const SPLIT_SWEEP = 1.5 * Math.PI;
+/** mm: arcs whose centres and radii agree this closely continue one circle and are written as one move. */
+export const SAME_CIRCLE_MM = 1e-7;
 
 /** What {@link emitMachine} wrote. */
 export interface MachineEmitStats {
@@ -38,28 +42,38 @@ export function emitMachine(sink: MachineSink, elements: readonly MachineElement
   for (const el of elements) {
     sink.beginElement({ index: el.index, label: el.label, group: el.group });
     for (const ct of el.contours) {
-      if (ct.segments.length === 0) continue;
-      const s0 = ct.segments[0];
-      sink.moveTo(X(s0.x0, s0.y0), Y(s0.x0, s0.y0));
+      const segs = ct.segments;
+      if (segs.length === 0) continue;
+      sink.moveTo(X(segs[0].x0, segs[0].y0), Y(segs[0].x0, segs[0].y0));
       stats.travels++;
-      for (const s of ct.segments) {
+      for (let k = 0; k < segs.length; k++) {
+        const s = segs[k];
         const g = arcGeometry(s);
         if (!g) {
           sink.lineTo(X(s.x1, s.y1), Y(s.x1, s.y1));
           stats.lines++;
           continue;
         }
+        // Arcs that go on along the same circle (the fitter may close a circle with a short arc) are one move.
+        let sweep = g.sweep, last = s;
+        while (k + 1 < segs.length) {
+          const h = arcGeometry(segs[k + 1]);
+          if (!h || (h.sweep > 0) !== (g.sweep > 0) || Math.abs(h.r - g.r) > SAME_CIRCLE_MM || Math.hypot(h.cx - g.cx, h.cy - g.cy) > SAME_CIRCLE_MM) break;
+          sweep += h.sweep;
+          last = segs[++k];
+        }
         const ccw = (g.sweep > 0) !== mirror;
         const cx = X(g.cx, g.cy), cy = Y(g.cx, g.cy);
-        if (Math.abs(g.sweep) > Math.PI + HALF_TURN_EPS) {
-          // Half-way point: the start rotated by half the sweep about the centre (page frame).
-          const h = g.sweep / 2, ch = Math.cos(h), sh = Math.sin(h);
-          const dx = s.x0 - g.cx, dy = s.y0 - g.cy;
+        // Equal pieces of at most SPLIT_SWEEP (two for a whole circle), the last ending exactly on the run's end.
+        const pieces = Math.abs(sweep) > SPLIT_SWEEP ? Math.ceil(Math.abs(sweep) / Math.PI) : 1;
+        const dx = s.x0 - g.cx, dy = s.y0 - g.cy;
+        for (let p = 1; p < pieces; p++) {
+          const h = (sweep * p) / pieces, ch = Math.cos(h), sh = Math.sin(h);
           const mx = g.cx + dx * ch - dy * sh, my = g.cy + dx * sh + dy * ch;
           sink.arcTo(X(mx, my), Y(mx, my), cx, cy, ccw);
           stats.arcs++;
         }
-        sink.arcTo(X(s.x1, s.y1), Y(s.x1, s.y1), cx, cy, ccw);
+        sink.arcTo(X(last.x1, last.y1), Y(last.x1, last.y1), cx, cy, ccw);
         stats.arcs++;
       }
     }

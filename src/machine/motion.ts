@@ -16,8 +16,9 @@
  *    The tool passes through the corner; δ is a model parameter, not a path
  *    error. A tool switch (travel ↔ work) is a full stop, plus the profile's
  *    seconds per switch.
- * 4. Look-ahead: the planner sees `lookAhead` moves; the speed entering a move
- *    must allow a stop at the end of the last move it sees.
+ * 4. Look-ahead: the planner holds `lookAhead` moves, the running one
+ *    included; the speed at the end of the running move must allow a stop by
+ *    the end of the last move it holds.
  * 5. Speeds at junctions by a backward and a forward pass (REFERENCES §13.4),
  *    each move then a trapezoid or triangle profile between them (§13.1).
  *
@@ -159,15 +160,18 @@ export function estimateTime(moves: readonly MachineMove[], p: MotionParams): Mo
 }
 
 /**
- * Look-ahead: entering move k, the planner must be able to stop by the end of
- * move k + N − 1 while keeping every junction limit inside the window.
+ * Look-ahead: the planner holds N moves, the running one included, and the
+ * profile of the running move k − 1 is fixed with the moves it then sees: the
+ * speed at its end (junction k) must allow a stop by the end of move
+ * k + N − 2, keeping every junction limit on the way. N = 1 stops after every
+ * move.
  */
 function windowLimit(L: Float64Array, v: Float64Array, a: number, N: number): void {
   const n = L.length;
-  if (N >= n) return; // the whole program fits in the window: the global passes do it
   const lim = Float64Array.from(v);
   for (let k = 1; k < n; k++) {
-    const end = Math.min(n, k + N);
+    const end = k + N - 1; // first move past the window
+    if (end >= n) break; // from here on the window reaches the program's end: the global passes do it
     let w = 0; // stop at the window's end
     for (let j = end - 1; j >= k; j--) w = Math.min(lim[j], Math.sqrt(w * w + 2 * a * L[j]));
     if (w < v[k]) v[k] = w;

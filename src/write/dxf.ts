@@ -123,7 +123,8 @@ export class DxfWriter implements MachineSink {
     const nx = -uy / c, ny = ux / c;
     const t = (cx - mx) * nx + (cy - my) * ny;
     const r = Math.hypot(c / 2, t);
-    if (r - Math.abs(t) <= this.q) {
+    // Sagitta: a counter-clockwise arc with its centre left of the chord (t > 0) is the short one.
+    if ((ccw === t > 0 ? r - Math.abs(t) : r + Math.abs(t)) <= this.q) {
       this.stats.flat++;
       this.lineTo(ex, ey);
       return;

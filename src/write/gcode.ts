@@ -142,8 +142,8 @@ export class GcodeWriter implements MachineSink {
     const nx = -uy / c, ny = ux / c;
     const t = (cx - mx) * nx + (cy - my) * ny;
     const r = Math.hypot(c / 2, t);
-    // Sagitta of the arc's side of the chord; an arc of ≤ a half turn (./emit.ts) is on the short side.
-    if (r - Math.abs(t) <= this.q) {
+    // Sagitta: a counter-clockwise arc with its centre left of the chord (t > 0) is the short one.
+    if ((ccw === t > 0 ? r - Math.abs(t) : r + Math.abs(t)) <= this.q) {
       this.stats.flat++;
       this.lineTo(ex, ey);
       return;

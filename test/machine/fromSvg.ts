@@ -61,5 +61,5 @@ export function svgMachineJob(text: string, tol: number, source: string | null =
     });
     for (const c of contours) for (let i = 1; i < c.xy.length; i += 2) bottom = Math.max(bottom, c.xy[i]);
   }
-  return { drawing: { pageHeightMm: Math.ceil(bottom), elements, source }, digits, dense, thinned };
+  return { drawing: { pageHeightMm: Math.ceil(bottom - 1e-9), elements, source }, digits, dense, thinned };
 }
