@@ -12,3 +12,9 @@ declare module 'gcode-toolpath' {
     loadFromStringSync(text: string, callback?: (data: ParsedLine, index: number) => void): ParsedLine[];
   }
 }
+
+// CSS colour keywords → [r, g, b] (ships no types).
+declare module 'color-name' {
+  const colors: Readonly<Record<string, readonly [number, number, number]>>;
+  export default colors;
+}

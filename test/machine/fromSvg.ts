@@ -15,6 +15,7 @@ import { OP_A, OP_C, OP_Q, type PathData } from '../../src/svg/pathTypes.js';
 import type { MachineDrawing, MachineElement } from '../../src/machine/drawing.js';
 import type { PagePolyline } from '../../src/machine/emit.js';
 import { machineDigits, machineRoundingMm } from '../../src/machine/digits.js';
+import { strokeKey } from '../../src/machine/colour.js';
 
 export interface SvgMachineJob {
   drawing: MachineDrawing;
@@ -43,7 +44,7 @@ export function svgMachineJob(text: string, tol: number, source: string | null =
     const contours = flattenPath(p, el.toMm, curved(p) ? flat : tol);
     const fitTol = tol - flat - machineRoundingMm(digits);
     const label = el.id ? `${el.name}#${el.id}` : `${el.name} ${el.index}`;
-    const group = (el.attrs.stroke ?? '#000000').toLowerCase();
+    const group = strokeKey(el.attrs.stroke ?? null);
     const fitted = contours.map((c) => ({ segments: fitPolyline(c.xy, { tolerance: fitTol, closed: c.closed, corners: c.corners }).segments, closed: c.closed }));
     elements.push({ index: el.index, label, group, contours: fitted, original: { path: p, toMm: el.toMm } });
     dense.push({ index: el.index, label, group, polylines: contours.map((c) => ({ xy: c.xy, closed: c.closed })) });
