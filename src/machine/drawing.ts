@@ -16,10 +16,16 @@ import type { Segment } from '../fit/segment.js';
 import type { PathData } from '../svg/pathTypes.js';
 import type { Matrix } from '../svg/matrixTypes.js';
 
-/** One fitted contour of an element: segments in page mm, end to end. */
+/**
+ * One contour of an element in page mm: fitted segments end to end, or, for
+ * geometry that is not refitted (an element kept as written), the polyline
+ * `xy` (flat x,y pairs; a closed one does not repeat its first point), written
+ * as straight moves.
+ */
 export interface MachineContour {
   segments: Segment[];
   closed: boolean;
+  xy?: Float64Array;
 }
 
 /** One drawn element: its fitted contours, the group it is cut with, and its original geometry for the proof. */

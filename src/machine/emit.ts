@@ -42,6 +42,10 @@ export function emitMachine(sink: MachineSink, elements: readonly MachineElement
   for (const el of elements) {
     sink.beginElement({ index: el.index, label: el.label, group: el.group });
     for (const ct of el.contours) {
+      if (ct.xy) {
+        polyline(sink, ct.xy, ct.closed, m, stats);
+        continue;
+      }
       const segs = ct.segments;
       if (segs.length === 0) continue;
       sink.moveTo(X(segs[0].x0, segs[0].y0), Y(segs[0].x0, segs[0].y0));
@@ -87,6 +91,21 @@ export interface PagePolyline {
   closed: boolean;
 }
 
+/** Travel to a polyline's start and draw it with straight moves. */
+function polyline(sink: MachineSink, xy: Float64Array, closed: boolean, m: Matrix, stats: MachineEmitStats): void {
+  const n = xy.length >> 1;
+  if (n < 2) return;
+  const a = m[0], b = m[1], c = m[2], d = m[3], e = m[4], f = m[5];
+  sink.moveTo(a * xy[0] + c * xy[1] + e, b * xy[0] + d * xy[1] + f);
+  stats.travels++;
+  const last = closed ? n : n - 1;
+  for (let k = 1; k <= last; k++) {
+    const i = (k % n) * 2;
+    sink.lineTo(a * xy[i] + c * xy[i + 1] + e, b * xy[i] + d * xy[i + 1] + f);
+    stats.lines++;
+  }
+}
+
 /**
  * The same drawing as straight moves only (the baseline the refit is compared
  * with): every polyline vertex becomes a line. Does not call `finish`.
@@ -95,22 +114,9 @@ export function emitPolylines(
   sink: MachineSink, elements: readonly { index: number; label: string; group: string; polylines: readonly PagePolyline[] }[], m: Matrix,
 ): MachineEmitStats {
   const stats: MachineEmitStats = { lines: 0, arcs: 0, travels: 0 };
-  const a = m[0], b = m[1], c = m[2], d = m[3], e = m[4], f = m[5];
   for (const el of elements) {
     sink.beginElement({ index: el.index, label: el.label, group: el.group });
-    for (const p of el.polylines) {
-      const n = p.xy.length >> 1;
-      if (n < 2) continue;
-      const xy = p.xy;
-      sink.moveTo(a * xy[0] + c * xy[1] + e, b * xy[0] + d * xy[1] + f);
-      stats.travels++;
-      const last = p.closed ? n : n - 1;
-      for (let k = 1; k <= last; k++) {
-        const i = (k % n) * 2;
-        sink.lineTo(a * xy[i] + c * xy[i + 1] + e, b * xy[i] + d * xy[i + 1] + f);
-        stats.lines++;
-      }
-    }
+    for (const p of el.polylines) polyline(sink, p.xy, p.closed, m, stats);
   }
   return stats;
 }

@@ -58,3 +58,15 @@ describe('page → machine', () => {
     expect(out.proof.ok).toBe(true);
   });
 });
+
+describe('contours kept as polylines', () => {
+  it('a contour given as xy is written as straight moves and proves like the rest', () => {
+    const job = svgMachineJob(svg('M 2 2 L 18 2 L 18 18 Z'), 0.05);
+    const el = job.drawing.elements[0];
+    el.contours = [{ segments: [], closed: true, xy: Float64Array.of(2, 2, 18, 2, 18, 18) }];
+    const out = writeMachineFile(job.drawing, { format: 'gcode', tolerance: 0.05, profile: BUILTIN_PROFILES.laser });
+    expect(out.moves).toMatchObject({ lines: 3, arcs: 0, travels: 1 });
+    expect(out.proof.ok).toBe(true);
+    expect(out.proof.maxDeviation).toBeLessThan(1e-9);
+  });
+});
