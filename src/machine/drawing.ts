@@ -37,6 +37,8 @@ export interface MachineElement {
   /** Group key: the element's computed stroke colour as `#rrggbb`, or `none`. Selects layer, power and feed. */
   group: string;
   contours: MachineContour[];
+  /** This element's tolerance in mm when tighter than the file's (a copy drawn larger elsewhere); default the file's. */
+  toleranceMm?: number;
   /** The original geometry (path data in user units and its matrix to page mm), measured against in the proof. */
   original: { path: PathData; toMm: Matrix };
 }

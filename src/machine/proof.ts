@@ -45,26 +45,27 @@ export const RADIUS_CHECK_MM = 0.002;
 /**
  * Measure every element of a drawing against its read-back.
  * @param pageToMachine page mm → machine mm (./drawing.ts)
- * @param tolMm the tolerance, mm
+ * @param tolMm the file's tolerance, mm (sampling and resolution; an element's own `toleranceMm` may be tighter)
  */
 export function proveMachine(elements: readonly MachineElement[], read: ReadBack, pageToMachine: Matrix, tolMm: number): MachineProof {
   const out: MachineProof = { elements: [], maxDeviation: 0, ok: true, problems: [] };
   const chord = tolMm * PROOF_ERROR_FRACTION, spacing = tolMm * PROOF_SPACING_FACTOR;
   const buf = new SampleBuffer();
   for (const el of elements) {
+    const tol = Math.min(tolMm, el.toleranceMm ?? tolMm);
     const toMachine = multiply(new Float64Array(6), pageToMachine, el.original.toMm);
     const sa = samplePath(el.original.path, toMachine, spacing, chord, buf);
     const rb = read.elements.get(el.index);
     const sb = { polylines: rb ? rb.polylines : [], errorBound: read.errorBound };
     const d = sa.polylines.length === 0 && sb.polylines.length === 0 ? null : compareSampled(sa, sb, toMachine, chord);
     const drawsNothing = sa.polylines.length === 0 && sb.polylines.length === 0;
-    const ok = drawsNothing || (d !== null && d.max <= tolMm);
+    const ok = drawsNothing || (d !== null && d.max <= tol);
     out.elements.push({ index: el.index, label: el.label, deviation: d, ok });
     if (d && d.max > out.maxDeviation) out.maxDeviation = d.max;
     if (!ok) {
       out.ok = false;
       out.problems.push(d
-        ? `${el.label}: measured deviation ${d.max.toPrecision(3)} mm of the written file is over the tolerance ${+tolMm.toPrecision(6)} mm`
+        ? `${el.label}: measured deviation ${d.max.toPrecision(3)} mm of the written file is over the tolerance ${+tol.toPrecision(6)} mm`
         : `${el.label}: the reader found ${sb.polylines.length === 0 ? 'nothing drawn' : 'moves where the original draws nothing'}`);
     }
   }
