@@ -113,7 +113,22 @@ export function writeMachineFile(drawing: MachineDrawing, o: MachineFileOptions)
 export interface StraightProgram {
   lines: number;
   moves: number;
+  /** Vertices that rounded onto the previous one (no line written). */
+  skipped: number;
   time: MotionEstimate;
+}
+
+/**
+ * Estimated time and move count of polylines (page mm) as straight moves only,
+ * without writing them: the baseline of the summary.
+ */
+export function straightEstimate(
+  elements: readonly { index: number; label: string; group: string; polylines: readonly PagePolyline[] }[],
+  pageHeightMm: number, profile: MachineProfile, origin: MachineOrigin = 'lower-left',
+): { moves: number; time: MotionEstimate } {
+  const rec = new RecordingMachineSink();
+  const stats = emitPolylines(rec, elements, pageToMachine(pageHeightMm, origin));
+  return { moves: stats.lines, time: estimateTime(rec.moves, motionParams(profile)) };
 }
 
 /**
@@ -131,5 +146,5 @@ export function straightProgram(
   const rec = new RecordingMachineSink();
   emitPolylines(rec, elements, frame);
   const text = w.toString();
-  return { text, lines: countLines(text), moves: w.stats.lines, time: estimateTime(rec.moves, motionParams(profile)) };
+  return { text, lines: countLines(text), moves: w.stats.lines, skipped: w.stats.skipped, time: estimateTime(rec.moves, motionParams(profile)) };
 }

@@ -7,7 +7,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { svgMachineJob } from './fromSvg.js';
-import { straightProgram, writeMachineFile } from '../../src/machine/program.js';
+import { straightEstimate, straightProgram, writeMachineFile } from '../../src/machine/program.js';
 import { BUILTIN_PROFILES } from '../../src/machine/profile.js';
 import { readBackGcode } from '../../src/machine/readback.js';
 import { proveMachine } from '../../src/machine/proof.js';
@@ -56,6 +56,10 @@ describe('machine files of the samples, read back independently', () => {
     const arcs = writeMachineFile(job.drawing, { format: 'gcode', tolerance: TOL, profile: BUILTIN_PROFILES.laser });
     const straight = straightProgram(job.dense, job.drawing.pageHeightMm, BUILTIN_PROFILES.laser, arcs.digits);
     expect(straight.lines / arcs.lines).toBeGreaterThanOrEqual(5);
+    // The estimate without the text is the same program's.
+    const est = straightEstimate(job.dense, job.drawing.pageHeightMm, BUILTIN_PROFILES.laser);
+    expect(est.time.seconds).toBe(straight.time.seconds);
+    expect(est.moves).toBe(straight.moves + straight.skipped);
   });
 });
 
