@@ -1,34 +1,28 @@
 /**
- * Decimals for machine files (mm), from the tolerance. Stand-in until the
- * tolerance budget module lands; the one place that decides this for G-code
- * and DXF.
- *
- * Rule: the same rounding share as the SVG writer (5 % of the tolerance for
- * the written arc's rounding error, ../write/emit.ts writtenArcErrorBound at 1
- * mm per unit), and never fewer than 3 decimals: with end points rounded first
- * and the centre put on the rounded chord's bisector before I, J are rounded,
- * the two radii of a written arc differ by at most √2·10^−d mm
- * (../../shared/REFERENCES.md §12.1 G5), 0.0014 mm at d = 3, inside the
- * 0.002 mm a RS274/NGC interpreter accepts (NIST RS274NGC v3 §3.5.3.2).
+ * Decimals for machine files (mm): the tolerance budget's split (../budget.ts)
+ * for coordinates written in mm (mmPerUnit 1), never below 3 decimals. With
+ * end points rounded first and the centre put on the rounded chord's bisector
+ * before I, J are rounded, the two radii of a written arc differ by at most
+ * √2·10^−d mm (../../shared/REFERENCES.md §12.1 G5), 0.0014 mm at d = 3, inside
+ * the 0.002 mm a RS274/NGC interpreter accepts (NIST RS274NGC v3 §3.5.3.2).
  */
-import { writtenArcErrorBound } from '../write/emit.js';
-import { digitsForTolerance } from '../write/numbers.js';
+import { splitTolerance, type ToleranceSplit } from '../budget.js';
 
 /** Fewest decimals written to a machine file. */
 export const MIN_MACHINE_DIGITS = 3;
-/** Share of the tolerance given to rounding the written numbers (as for SVG output). */
-export const MACHINE_ROUNDING_SHARE = 0.05;
 
 /**
- * Decimals for coordinates in mm.
- * @param tolMm tolerance in mm (> 0)
+ * An element's budget for machine output: the budget's split in mm, its digits raised to MIN_MACHINE_DIGITS.
+ * @param tolMm the element's tolerance, mm (> 0)
+ * @param curved whether it has curves to flatten
+ * @param digits fixed decimals, or null for the fewest the budget allows (at least MIN_MACHINE_DIGITS)
  */
-export function machineDigits(tolMm: number): number {
-  // digitsForTolerance keeps √2/2·10^−d ≤ t/20; the written arc error is 3× that (emit.ts), so ask for t·share·20/3.
-  return Math.max(MIN_MACHINE_DIGITS, digitsForTolerance((tolMm * MACHINE_ROUNDING_SHARE * 20) / 3, 1));
+export function machineSplit(tolMm: number, curved: boolean, digits: number | null = null): ToleranceSplit {
+  const d = digits ?? Math.max(MIN_MACHINE_DIGITS, splitTolerance(tolMm, { curved, mmPerUnit: 1 }).digits);
+  return splitTolerance(tolMm, { curved, mmPerUnit: 1, digits: d });
 }
 
-/** mm: the rounding error allowed for written arcs and lines at `digits` decimals (the fit gets the tolerance less this). */
-export function machineRoundingMm(digits: number): number {
-  return writtenArcErrorBound(digits);
+/** Decimals for a whole machine file whose tightest element tolerance is `tolMm`. */
+export function machineDigits(tolMm: number): number {
+  return machineSplit(tolMm, true).digits;
 }

@@ -2,14 +2,14 @@
  * The proof on the written machine file: each element's original geometry,
  * mapped into machine coordinates, against what an independent reader rebuilt
  * from the file (./readback.ts), with the report's own sampler and two-sided
- * distance bound (../report/sample.ts, ../report/measure.ts). Every distance is
+ * distance bound (../measure/sample.ts, ../measure/measure.ts). Every distance is
  * an upper bound of the true one (as for SVG output).
  */
 import type { Matrix } from '../svg/matrixTypes.js';
 import { multiply } from '../svg/matrix.js';
 import type { Deviation } from '../report/types.js';
-import { SampleBuffer, samplePath } from '../report/sample.js';
-import { compareSampled } from '../report/measure.js';
+import { SampleBuffer, samplePath } from '../measure/sample.js';
+import { compareSampled } from '../measure/measure.js';
 import type { MachineElement } from './drawing.js';
 import type { ReadBack } from './readback.js';
 

@@ -95,6 +95,8 @@ export interface SvgDocument {
   rootToMm: Matrix;
   /** True when the root's width/height state a physical size. */
   physicalSize: boolean;
+  /** The page (the root viewport) in mm, width and height (machine output puts its origin at a page corner). */
+  pageMm: [number, number];
   warnings: string[];
 }
 
@@ -157,6 +159,7 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
   let noNamespaceIsSvg = false;
   let docRootToMm: Matrix = identityMatrix();
   let physical = false;
+  let pageMm: [number, number] = [0, 0];
   let sawStyleTransform = false;
 
   parser.on('error', (e: Error) => {
@@ -231,6 +234,7 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
     if (depth === 0) {
       const frame = rootToMm(at.width, at.height, at.viewBox, at.preserveAspectRatio, opts.assumedMmPerUnit);
       physical = frame.physical;
+      pageMm = frame.pageMm;
       w = frame.viewportW;
       h = frame.viewportH;
       if (frame.warning !== null) warnings.push(frame.warning);
@@ -335,7 +339,7 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
       e.reason = `drawn again by <use> at a scale that cannot be bounded (a cycle of uses, a chain of more than ${MAX_CHAIN}, or a resized nested <svg>)`;
     }
   });
-  return { text, elements, rootToMm: docRootToMm, physicalSize: physical, warnings: [...guard.warnings, ...warnings] };
+  return { text, elements, rootToMm: docRootToMm, physicalSize: physical, pageMm, warnings: [...guard.warnings, ...warnings] };
 }
 
 /** "svg > g#a > g" for the first `depth` labels, eliding the middle of a deep chain. */

@@ -101,6 +101,8 @@ export interface RootFrame {
   viewportW: number;
   /** Height that y-like percentages refer to, user units. */
   viewportH: number;
+  /** The page (the root viewport) in mm, width and height: where a machine file's origin is put. */
+  pageMm: [number, number];
   /** Assumptions made or attributes ignored, or null. */
   warning: string | null;
 }
@@ -173,22 +175,23 @@ export function rootToMm(
 
   if (vb !== null && (vb[2] === 0 || vb[3] === 0)) {
     notes.push('viewBox has zero width or height: nothing is rendered (SVG 2 §8.6)');
-    return { matrix: matrix(0, 0, 0, 0, 0, 0), physical: w !== null || h !== null, viewportW: 0, viewportH: 0, warning: warn() };
+    return { matrix: matrix(0, 0, 0, 0, 0, 0), physical: w !== null || h !== null, viewportW: 0, viewportH: 0, pageMm: [0, 0], warning: warn() };
   }
   if (w === null && h === null) {
     const k = assumedMmPerUnit;
     notes.push(`no physical size stated (width/height missing, auto or %): assuming ${assumedSizeText(k)} per user unit ` +
       '(set it with --unitless-size, or the library option assumedMmPerUnit)');
     if (vb !== null) {
-      return { matrix: matrix(k, 0, 0, k, -vb[0] * k, -vb[1] * k), physical: false, viewportW: vb[2], viewportH: vb[3], warning: warn() };
+      return { matrix: matrix(k, 0, 0, k, -vb[0] * k, -vb[1] * k), physical: false, viewportW: vb[2], viewportH: vb[3], pageMm: [vb[2] * k, vb[3] * k], warning: warn() };
     }
-    return { matrix: matrix(k, 0, 0, k, 0, 0), physical: false, viewportW: DEFAULT_W, viewportH: DEFAULT_H, warning: warn() };
+    return { matrix: matrix(k, 0, 0, k, 0, 0), physical: false, viewportW: DEFAULT_W, viewportH: DEFAULT_H, pageMm: [DEFAULT_W * k, DEFAULT_H * k], warning: warn() };
   }
   if (vb === null) {
-    return { matrix: pxToMm, physical: true, viewportW: w ?? DEFAULT_W, viewportH: h ?? DEFAULT_H, warning: warn() };
+    const pw = w ?? DEFAULT_W, ph = h ?? DEFAULT_H;
+    return { matrix: pxToMm, physical: true, viewportW: pw, viewportH: ph, pageMm: [pw * mmPerPx, ph * mmPerPx], warning: warn() };
   }
   if (w === null) w = (h as number) * (vb[2] / vb[3]);
   if (h === null) h = w * (vb[3] / vb[2]);
   const m = multiply(pxToMm, pxToMm, viewBoxTransform(vb, par, 0, 0, w, h));
-  return { matrix: m, physical: true, viewportW: vb[2], viewportH: vb[3], warning: warn() };
+  return { matrix: m, physical: true, viewportW: vb[2], viewportH: vb[3], pageMm: [w * mmPerPx, h * mmPerPx], warning: warn() };
 }

@@ -14,7 +14,7 @@ import { thinWithin } from '../../src/fit/prefilter.js';
 import { OP_A, OP_C, OP_Q, type PathData } from '../../src/svg/pathTypes.js';
 import type { MachineDrawing, MachineElement } from '../../src/machine/drawing.js';
 import type { PagePolyline } from '../../src/machine/emit.js';
-import { machineDigits, machineRoundingMm } from '../../src/machine/digits.js';
+import { machineDigits, machineSplit } from '../../src/machine/digits.js';
 import { strokeKey } from '../../src/machine/colour.js';
 
 export interface SvgMachineJob {
@@ -40,9 +40,9 @@ export function svgMachineJob(text: string, tol: number, source: string | null =
     if (!el.rewritable) continue;
     const p = el.name === 'path' ? parsePathData(el.attrs.d ?? '') : shapeToPath(el.name, (a) => el.attrs[a], el.viewportW, el.viewportH).path;
     if (!p || p.ops.length === 0) continue;
-    const flat = curved(p) ? 0.05 * tol : 0;
-    const contours = flattenPath(p, el.toMm, curved(p) ? flat : tol);
-    const fitTol = tol - flat - machineRoundingMm(digits);
+    const split = machineSplit(tol, curved(p), digits);
+    const contours = flattenPath(p, el.toMm, curved(p) ? split.flattenMm : tol);
+    const fitTol = split.fitMm;
     const label = el.id ? `${el.name}#${el.id}` : `${el.name} ${el.index}`;
     const group = strokeKey(el.attrs.stroke ?? null);
     const fitted = contours.map((c) => ({ segments: fitPolyline(c.xy, { tolerance: fitTol, closed: c.closed, corners: c.corners }).segments, closed: c.closed }));

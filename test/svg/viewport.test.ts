@@ -166,3 +166,16 @@ describe('rootToMm decisions', () => {
     expect(Array.from(a.matrix)).toEqual(Array.from(b.matrix));
   });
 });
+
+describe('the page in mm (the root viewport; machine output puts its origin at a corner)', () => {
+  it('physical sizes in mm and in (CSS) inches, 1in = 25.4 mm (CSS Values 3 §5.2)', () => {
+    expect(rootToMm('120mm', '80mm', '0 0 120 80', undefined, 1).pageMm.map((v) => +v.toFixed(9))).toEqual([120, 80]);
+    expect(rootToMm('2in', '1in', undefined, undefined, 1).pageMm.map((v) => +v.toFixed(9))).toEqual([50.8, 25.4]);
+    // One size given, the other from the viewBox's aspect ratio.
+    expect(rootToMm('100mm', undefined, '0 0 200 50', undefined, 1).pageMm.map((v) => +v.toFixed(9))).toEqual([100, 25]);
+  });
+  it('no physical size: the viewBox at the assumed size; a zero viewBox is an empty page', () => {
+    expect(rootToMm(undefined, undefined, '10 20 200 100', undefined, 0.5).pageMm).toEqual([100, 50]);
+    expect(rootToMm('10mm', '10mm', '0 0 0 10', undefined, 1).pageMm).toEqual([0, 0]);
+  });
+});
