@@ -19,7 +19,18 @@ export interface Options {
   digits: number | null;
   /** Largest input accepted, in bytes (characters for a string); larger inputs are refused before parsing. */
   maxInputBytes: number;
+  /** What to write: the SVG with arcs, or a machine file (G-code, DXF) from the same fit. */
+  format: OutputFormat;
+  /** Machine output: a built-in profile name (laser, pen-z, pen-servo) or a profile's JSON text. */
+  machineProfile: string;
+  /** Machine output: the page corner at the machine origin (Y always points up). */
+  machineOrigin: 'lower-left' | 'upper-left';
 }
+
+/** Output formats. */
+export type OutputFormat = 'svg' | 'gcode' | 'dxf';
+/** Every output format, for validation and help. */
+export const OUTPUT_FORMATS: readonly OutputFormat[] = Object.freeze(['svg', 'gcode', 'dxf']);
 
 /**
  * Options as a caller gives them: every field optional (defaults in
@@ -42,6 +53,9 @@ export const DEFAULT_OPTIONS: Readonly<Options> = Object.freeze({
   assumedMmPerUnit: 25.4 / 96,
   digits: null,
   maxInputBytes: 256 * 2 ** 20,
+  format: 'svg',
+  machineProfile: 'laser',
+  machineOrigin: 'lower-left',
 });
 
 export const OPTION_DOCS: Readonly<Record<keyof Options, OptionDoc>> = Object.freeze({
@@ -52,6 +66,9 @@ export const OPTION_DOCS: Readonly<Record<keyof Options, OptionDoc>> = Object.fr
   assumedMmPerUnit: { meaning: 'size of one user unit when the file states no physical size', unit: 'mm' },
   digits: { meaning: 'decimal places written (default: derived from the tolerance)', unit: 'count' },
   maxInputBytes: { meaning: 'largest input accepted; larger files are refused before reading (memory: plan for about 20x the file size)', unit: 'bytes' },
+  format: { meaning: 'output: svg, gcode or dxf (the same fit; a machine file is read back and measured)', unit: 'name' },
+  machineProfile: { meaning: 'machine profile for G-code: laser, pen-z, pen-servo or a JSON profile', unit: 'name' },
+  machineOrigin: { meaning: 'page corner at the machine origin in G-code and DXF: lower-left or upper-left', unit: 'name' },
 });
 
 /** Error for an option value a user gave; its message names the option and the bad value. */
@@ -108,6 +125,9 @@ export function resolveOptions(input: ArcsplineOptions = {}): Options {
     assumedMmPerUnit: partial.assumedMmPerUnit ?? DEFAULT_OPTIONS.assumedMmPerUnit,
     digits: partial.digits === undefined ? DEFAULT_OPTIONS.digits : partial.digits,
     maxInputBytes: partial.maxInputBytes ?? DEFAULT_OPTIONS.maxInputBytes,
+    format: partial.format ?? DEFAULT_OPTIONS.format,
+    machineProfile: partial.machineProfile ?? DEFAULT_OPTIONS.machineProfile,
+    machineOrigin: partial.machineOrigin ?? DEFAULT_OPTIONS.machineOrigin,
   };
   if (!(o.tolerance > 0) || !Number.isFinite(o.tolerance)) {
     throw new OptionError(`tolerance must be a positive number of mm, got ${String(partial.tolerance)}`);
@@ -123,6 +143,13 @@ export function resolveOptions(input: ArcsplineOptions = {}): Options {
   }
   if (!(o.maxInputBytes > 0) || !Number.isFinite(o.maxInputBytes)) {
     throw new OptionError(`maxInputBytes must be a positive number of bytes, got ${String(partial.maxInputBytes)}`);
+  }
+  if (!OUTPUT_FORMATS.includes(o.format)) throw new OptionError(`format must be one of ${OUTPUT_FORMATS.join(', ')}, got ${String(partial.format)}`);
+  if (typeof o.machineProfile !== 'string' || o.machineProfile.length === 0) {
+    throw new OptionError(`machineProfile must be a profile name or a profile's JSON text, got ${String(partial.machineProfile)}`);
+  }
+  if (o.machineOrigin !== 'lower-left' && o.machineOrigin !== 'upper-left') {
+    throw new OptionError(`machineOrigin must be lower-left or upper-left, got ${String(partial.machineOrigin)}`);
   }
   return o;
 }

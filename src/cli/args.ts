@@ -5,7 +5,9 @@
  * DEFAULT_OPTIONS apply, and `--help` prints those defaults.
  */
 import { Command, InvalidArgumentError, Option } from 'commander';
-import { DEFAULT_OPTIONS, OPTION_DOCS, OptionError, parseToleranceText, resolveOptions, type Options } from '../options.js';
+import { readFileSync } from 'node:fs';
+import { DEFAULT_OPTIONS, OPTION_DOCS, OptionError, parseToleranceText, resolveOptions, type Options, type OutputFormat } from '../options.js';
+import { BUILTIN_PROFILES, loadProfile } from '../machine/profile.js';
 import { availableParallelism } from 'node:os';
 import { VERSION } from '../version.js';
 import { DEFAULT_WORKER_MEMORY_MB } from '../workerPool.js';
@@ -19,6 +21,9 @@ export const OPTION_FLAGS: Readonly<Record<keyof Options, string>> = Object.free
   assumedMmPerUnit: '--unitless-size <length>',
   digits: '--digits <n>',
   maxInputBytes: '--max-input <MB>',
+  format: '--format <name>',
+  machineProfile: '--profile <name|file.json>',
+  machineOrigin: '--origin <corner>',
 });
 
 /** Commander's attribute name for each option's flag (the camel-cased long flag). */
@@ -30,6 +35,9 @@ const ATTRIBUTE: Readonly<Record<keyof Options, string>> = Object.freeze({
   assumedMmPerUnit: 'unitlessSize',
   digits: 'digits',
   maxInputBytes: 'maxInput',
+  format: 'format',
+  machineProfile: 'profile',
+  machineOrigin: 'origin',
 });
 
 /** Flags of the command itself (not library options), as parsed. */
@@ -126,7 +134,44 @@ const PARSERS: Readonly<Partial<Record<keyof Options, (text: string) => unknown>
   assumedMmPerUnit: parseUnitlessSize,
   digits: (t: string) => validated('digits', parseNumber(t, 'decimal places')),
   maxInputBytes: parseMaxInput,
+  format: (t: string) => validated('format', t.toLowerCase() as OutputFormat),
+  machineProfile: parseProfileArg,
+  machineOrigin: (t: string) => validated('machineOrigin', t.toLowerCase() as Options['machineOrigin']),
 });
+
+/**
+ * `--profile`: a built-in name, or a JSON file read here (the library takes the text) and checked
+ * now, so a bad profile is refused before any input is read.
+ */
+function parseProfileArg(text: string): string {
+  if (Object.prototype.hasOwnProperty.call(BUILTIN_PROFILES, text)) return text;
+  let json: string;
+  try {
+    json = readFileSync(text, 'utf8');
+  } catch (e) {
+    const known = Object.keys(BUILTIN_PROFILES).join(', ');
+    throw new InvalidArgumentError(`"${text}" is neither a built-in profile (${known}) nor a readable file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+  }
+  try {
+    loadProfile(json);
+  } catch (e) {
+    if (e instanceof OptionError) throw new InvalidArgumentError(`${text}: ${e.message}`);
+    throw e;
+  }
+  return json;
+}
+
+/**
+ * The format an output name asks for: `.gcode`, `.nc`, `.ngc` → gcode, `.dxf` → dxf, `.svg`/`.svgz` → svg;
+ * null for any other name (and for none).
+ */
+export function formatOfOutputName(name: string | undefined): OutputFormat | null {
+  if (name === undefined) return null;
+  if (/\.(gcode|nc|ngc)$/i.test(name)) return 'gcode';
+  if (/\.dxf$/i.test(name)) return 'dxf';
+  if (/\.svgz?$/i.test(name)) return 'svg';
+  return null;
+}
 
 /** A default as `--help` shows it, from DEFAULT_OPTIONS; an empty string when the meaning says it already. */
 export function describeDefault(key: keyof Options): string {
@@ -134,7 +179,8 @@ export function describeDefault(key: keyof Options): string {
   const unit = OPTION_DOCS[key].unit;
   if (v === null) return '';
   if (typeof v === 'boolean') return v ? 'on' : 'off';
-  if (key === 'maxInputBytes') return `${v / 2 ** 20} MB`;
+  if (key === 'maxInputBytes') return `${(v as number) / 2 ** 20} MB`;
+  if (typeof v === 'string') return v;
   return `${+v.toPrecision(7)} ${unit}`;
 }
 
@@ -144,6 +190,7 @@ function optionHelp(key: keyof Options): string {
   let extra = '';
   if (key === 'tolerance') extra = '; mm, cm, in, pt, pc, px or Q, a bare number is mm';
   if (key === 'assumedMmPerUnit') extra = '; a length, a bare number is mm';
+  if (key === 'format') extra = '; by default from the -o name: .gcode, .nc, .ngc or .dxf';
   return `${doc.meaning}${extra}${def ? ` (default: ${def})` : ''}`;
 }
 

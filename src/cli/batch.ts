@@ -63,7 +63,8 @@ export async function runBatch(inputs: readonly string[], flags: BatchFlags, opt
     err(`arcspline: ${paint.red(`no SVG files to refit in ${inputs.join(' ')}${ignored}`)}`);
     return EXIT_USAGE;
   }
-  const jobs = await planJobs(list.files, flags);
+  const format = resolveOptions(options).format;
+  const jobs = await planJobs(list.files, { ...flags, outExtension: format === 'svg' ? undefined : `.${format}` });
   // Largest first; equal sizes keep the listing order.
   const order = jobs.map((j, i) => ({ j, i })).sort((a, b) => b.j.file.size - a.j.file.size || a.i - b.i).map((x) => x.j);
   const memoryMb = flags.workerMemoryMb ?? DEFAULT_WORKER_MEMORY_MB;

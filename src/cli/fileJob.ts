@@ -21,6 +21,7 @@ import { dirname } from 'node:path';
 import { Readable, type Writable } from 'node:stream';
 import { OptionError, resolveOptions, type Options } from '../options.js';
 import { refitSvgParallel } from '../refitParallel.js';
+import { refitToMachine } from '../refitMachine.js';
 import { formatTable } from '../report/table.js';
 import type { FileReport } from '../report/types.js';
 import { encodeSvgText, readSvgBytes, type SvgByteForm } from '../svg/decode.js';
@@ -101,6 +102,14 @@ export async function refitFileTask(task: FileTask, bytes?: Uint8Array): Promise
   } catch (e) {
     if (e instanceof SvgInputError) throw new UsageError(`${task.name}: ${e.message}`);
     throw e;
+  }
+  if (resolveOptions(task.options).format !== 'svg') {
+    // A machine file (G-code, DXF): always new text, UTF-8 (ASCII in practice), on this thread.
+    const m = refitToMachine(decoded.text, task.options, task.path);
+    return {
+      id: task.id, ok: true, report: m.report, out: new TextEncoder().encode(m.text), changed: true,
+      original: task.wantOriginal ? new Uint8Array(raw) : null, text: null,
+    };
   }
   const result = await refitSvgParallel(decoded.text, task.options, task.path, task.threads);
   const changed = result.text !== decoded.text;

@@ -14,7 +14,7 @@ import { resolveOptions, type Options } from '../options.js';
 import { measureMain } from './measureMain.js';
 import { SvgInputError } from '../svg/errors.js';
 import { checkSpacedUnits } from './spacedUnits.js';
-import { buildProgram, chosenCommand, parsedArgs, parsedMeasure, type CliFlags, type ParsedArgs } from './args.js';
+import { buildProgram, chosenCommand, formatOfOutputName, parsedArgs, parsedMeasure, type CliFlags, type ParsedArgs } from './args.js';
 import { EXIT_INTERNAL, EXIT_INTERRUPTED, EXIT_OK, EXIT_TOLERANCE, EXIT_USAGE, UsageError } from './exitCodes.js';
 import { runBatch } from './batch.js';
 import { isGlobPattern } from './inputs.js';
@@ -85,8 +85,10 @@ export async function main(argv: string[], io: Io = processIo()): Promise<number
   }
   const paint = choosePaint(io.stderrIsTTY ?? ttyOf(io.stderr), io.env ?? process.env);
   try {
-    const options = checkOptions(args.options);
-    if (await isBatch(args)) return await batchCommand(args, options, io);
+    const options = checkOptions(formatFromOutput(args));
+    const batch = await isBatch(args);
+    checkMachineCombination(args.flags, options);
+    if (batch) return await batchCommand(args, options, io);
     await checkCombination(args, io);
     const lines = args.flags.reportLines === undefined ? null : await ReportLineSink.open(args.flags.reportLines, io.stdout);
     let code = EXIT_OK;
@@ -140,6 +142,27 @@ function displayName(input: string): string {
 function checkOptions(options: Partial<Options>): Partial<Options> {
   resolveOptions(options);
   return options;
+}
+
+/**
+ * The options with the output format taken from the `-o` name when `--format` is not given (`.gcode`, `.nc`,
+ * `.ngc`, `.dxf`); a `--format` that contradicts the name is refused.
+ */
+function formatFromOutput(args: ParsedArgs): Partial<Options> {
+  const byName = formatOfOutputName(args.flags.output);
+  const given = args.options.format;
+  if (given !== undefined && byName !== null && given !== byName) {
+    throw new UsageError(`--format ${given} and the output name ${args.flags.output} (${byName}) disagree; give one of them`);
+  }
+  return given === undefined && byName !== null && byName !== 'svg' ? { ...args.options, format: byName } : args.options;
+}
+
+/** Machine output (G-code, DXF) goes to new files or standard output: never in place, no SVG preview. */
+function checkMachineCombination(flags: CliFlags, options: Partial<Options>): void {
+  const format = resolveOptions(options).format;
+  if (format === 'svg') return;
+  if (flags.inPlace) throw new UsageError(`--in-place rewrites SVG files; write ${format} with -o (a file, or a directory for a batch)`);
+  if (flags.preview !== undefined) throw new UsageError(`--preview draws SVG output; run without --format ${format} for a picture`);
 }
 
 /** Refuse flag combinations that cannot work, before reading anything. */

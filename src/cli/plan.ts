@@ -30,6 +30,8 @@ export interface PlanFlags {
   inPlace: boolean;
   /** `--report-lines` target, `-` for standard output. */
   reportLines?: string;
+  /** Machine output: the outputs' extension (`.gcode`, `.dxf`) in place of `.svg`/`.svgz`. */
+  outExtension?: string;
 }
 
 /** The real path of `p`, or of its nearest existing ancestor with the rest joined on (for paths not yet created). */
@@ -68,7 +70,9 @@ export async function planJobs(files: readonly InputFile[], flags: PlanFlags): P
       throw new UsageError(`-o ${dir} looks like a file name; a batch of ${files.length} files needs an output directory (or refit one file at a time)`);
     }
     const realDir = await realish(dir);
-    jobs = files.map((file) => ({ file, out: join(dir, ...file.rel.split('/')) }));
+    const ext = flags.outExtension;
+    const outRel = (rel: string): string => (ext === undefined ? rel : rel.replace(/\.svgz?$/i, '') + ext);
+    jobs = files.map((file) => ({ file, out: join(dir, ...outRel(file.rel).split('/')) }));
     const byOut = new Map<string, InputFile>();
     for (const j of jobs) {
       const key = resolve(j.out);
@@ -78,7 +82,7 @@ export async function planJobs(files: readonly InputFile[], flags: PlanFlags): P
     }
     const overwrite = (j: Job, input: string): UsageError =>
       new UsageError(`output ${j.out} would overwrite the input ${input}; choose an output directory outside the inputs, or give --in-place`);
-    const realOut = jobs.map((j) => join(realDir, ...j.file.rel.split('/')));
+    const realOut = jobs.map((j) => join(realDir, ...outRel(j.file.rel).split('/')));
     // Most telling first: a file written over itself (output directory = input directory).
     for (let i = 0; i < jobs.length; i++) {
       if (realOut[i] === realIn[i] || (await sameFile(jobs[i].out, jobs[i].file.path))) throw overwrite(jobs[i], jobs[i].file.path);

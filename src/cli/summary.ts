@@ -3,7 +3,7 @@
  * summary line (segments, measured deviation, bytes) and one line per warning
  * or per element kept because the tolerance could not be met.
  */
-import type { ElementReport, FileReport } from '../report/types.js';
+import type { ElementReport, FileReport, MachineSummary } from '../report/types.js';
 import { countOf, elementTag } from '../report/table.js';
 import { isOverTolerance } from '../report/status.js';
 
@@ -74,6 +74,7 @@ export function commandsText(replaced: number, total: number): string {
  * 32.5 kB → 2.0 kB`.
  */
 export function summaryLine(name: string, report: FileReport, paint: Paint = PLAIN): string {
+  if (report.machine) return machineSummaryLine(name, report, report.machine, paint);
   const t = report.totals;
   const bytes = `${formatBytes(report.bytesIn)} → ${formatBytes(report.bytesOut)}`;
   const head = `${paint.bold(name)}:`;
@@ -89,12 +90,26 @@ export function summaryLine(name: string, report: FileReport, paint: Paint = PLA
   );
 }
 
+/** The summary of a machine file: lines and moves, the deviation read back, the estimated time against straight moves. */
+function machineSummaryLine(name: string, report: FileReport, m: MachineSummary, paint: Paint): string {
+  const t = report.totals;
+  const what = m.format === 'gcode' ? 'G-code' : 'DXF';
+  const over = overTolerance(report).length;
+  const moves = `${countOf(m.moves.arcs, 'arc')}, ${countOf(m.moves.lines, 'line')}${m.format === 'gcode' ? `, ${countOf(m.moves.travels, 'travel')}` : ''}`;
+  const dev = `read back: max deviation ${formatMm(t.maxDeviation)} ≤ ${formatTolerance(report.toleranceMm)}`;
+  const time = `est. ${m.seconds.toFixed(1)} s (as ${m.straight.moves} straight moves ${m.straight.seconds.toFixed(1)} s, profile ${m.profile})`;
+  const overText = over > 0 ? paint.red(`; ${countOf(over, 'element')} over the tolerance written as straight moves`) : '';
+  const checked = m.checked ? paint.green(dev) : paint.red(`${dev}; the check found problems`);
+  return `${paint.bold(name)}: ${what} ${countOf(m.lines, 'line')} (${moves}) from ${countOf(t.elements, 'element')}, ${checked}, ${time}${overText}`;
+}
+
 /** One line per warning and per element kept over the tolerance, each prefixed by the file name. */
 export function problemLines(name: string, report: FileReport, paint: Paint = PLAIN): string[] {
   const out: string[] = [];
   for (const w of report.warnings) out.push(`${name}: ${paint.yellow('warning:')} ${w.replace(/\s*[\r\n]+\s*/g, ' ')}`);
   for (const e of overTolerance(report)) {
-    out.push(`${name}: ${paint.red('kept unchanged:')} ${elementTag(e)}: ${e.keptReason ?? 'over the tolerance'}`);
+    const label = report.machine ? 'written as straight moves:' : 'kept unchanged:';
+    out.push(`${name}: ${paint.red(label)} ${elementTag(e)}: ${e.keptReason ?? 'over the tolerance'}`);
   }
   return out;
 }

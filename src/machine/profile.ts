@@ -10,6 +10,7 @@
  * G21 G90 G17 G94 itself (millimetres, absolute, XY plane, feed per minute):
  * the written numbers mean nothing without them.
  */
+import { OptionError } from '../options.js';
 
 /** Settings for the strokes of one colour. */
 export interface ColourSettings {
@@ -50,8 +51,8 @@ export interface MachineProfile {
   toolSwitchSeconds: number;
 }
 
-/** One-line error about a profile; the message names the field and the bad value. */
-export class ProfileError extends Error {
+/** One-line error about a profile (an option error: the user can fix it); the message names the field and the bad value. */
+export class ProfileError extends OptionError {
   override name = 'ProfileError';
 }
 

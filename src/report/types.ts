@@ -83,4 +83,27 @@ export interface FileReport {
     withinTolerance: boolean;
   };
   warnings: string[];
+  /** Present when the output is a machine file (G-code or DXF) instead of SVG. */
+  machine?: MachineSummary;
+}
+
+/** A machine file's figures (src/refitMachine.ts). Deviations are in the elements, measured on the file read back. */
+export interface MachineSummary {
+  format: 'gcode' | 'dxf';
+  /** Machine profile name. */
+  profile: string;
+  /** Page corner at the machine origin. */
+  origin: 'lower-left' | 'upper-left';
+  /** Decimals of the written numbers (mm). */
+  digits: number;
+  /** Lines of the file. */
+  lines: number;
+  /** Moves written: travels (G0), lines (G1, LINE), arcs (G2/G3, ARC). */
+  moves: { travels: number; lines: number; arcs: number };
+  /** The reader found every element within its tolerance, nothing drawn outside an element and arc radii within 0.002 mm. */
+  checked: boolean;
+  /** Estimated machine time, s (motion model with the profile's feeds; README). */
+  seconds: number;
+  /** The same drawing as straight moves through its flattened contours: moves and estimated time, s. */
+  straight: { moves: number; seconds: number };
 }

@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { Readable, Writable } from 'node:stream';
 import { main } from '../../src/cli/main.js';
-import type { Deviation, ElementReport, FileReport } from '../../src/report/types.js';
+import type { Deviation, ElementReport, FileReport, MachineSummary } from '../../src/report/types.js';
 
 export interface RunResult {
   code: number;
@@ -61,13 +61,16 @@ export const FILE_REPORT_KEYS = ['tool', 'version', 'file', 'toleranceMm', 'byte
 export const TOTALS_KEYS = ['elements', 'rewritten', 'kept', 'commandsBefore', 'segmentsAfter', 'maxDeviation', 'withinTolerance'] as const;
 export const ELEMENT_KEYS = ['index', 'name', 'id', 'ancestors', 'commandsBefore', 'straightMovesNeeded', 'segmentsAfter', 'deviation', 'kept', 'keptReason', 'status', 'reason'] as const;
 export const DEVIATION_KEYS = ['max', 'originalToResult', 'resultToOriginal', 'mean', 'worstMm', 'worstUser'] as const;
+/** The report's `machine` field, present only for G-code and DXF output (FILE_REPORT_KEYS are an SVG report's). */
+export const MACHINE_KEYS = ['format', 'profile', 'origin', 'digits', 'lines', 'moves', 'checked', 'seconds', 'straight'] as const;
 
 // The lists above must name every field: a field added to the types without a test fails to compile here.
 type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
 const complete: [
-  Same<keyof FileReport, (typeof FILE_REPORT_KEYS)[number]>,
+  Same<Exclude<keyof FileReport, 'machine'>, (typeof FILE_REPORT_KEYS)[number]>,
+  Same<keyof MachineSummary, (typeof MACHINE_KEYS)[number]>,
   Same<keyof FileReport['totals'], (typeof TOTALS_KEYS)[number]>,
   Same<keyof ElementReport, (typeof ELEMENT_KEYS)[number]>,
   Same<keyof Deviation, (typeof DEVIATION_KEYS)[number]>,
-] = [true, true, true, true];
+] = [true, true, true, true, true];
 void complete;

@@ -1,0 +1,143 @@
+/**
+ * The main job with a machine file as the output: SVG text in, G-code or DXF
+ * text and a report out, pure. Same reading, budget and fitting as the SVG
+ * output (./model, ./budget.ts, numbers written in mm, at least 3 decimals:
+ * ./machine/digits.ts), then ./machine/program.ts writes the file, reads it
+ * back with an independent reader and measures every element against its
+ * original in machine coordinates.
+ *
+ * Every element that draws is written, circles, ellipses and rects included
+ * (a machine file has no shapes: they become arcs). An element over its
+ * tolerance after the fit is written as its flattened polyline instead
+ * (status 'reverted', reason 'over-tolerance'), as the SVG output keeps its
+ * original, and the file is written and proven again. Geometry that is not
+ * drawn where it stands (in defs, hidden) is not written, and `<use>` copies
+ * are not expanded (a warning says so).
+ */
+import { resolveOptions, type ArcsplineOptions } from './options.js';
+import { readSvg } from './svg/document.js';
+import { drawingElementFromSvg, readGeometry } from './model/fromSvg.js';
+import { fitElement } from './model/fit.js';
+import type { DrawingElement } from './model/drawing.js';
+import { baseReport, untouchedReport } from './refitElement.js';
+import { copiesSummary, summarise, untouchedSummary } from './refitSummary.js';
+import { setRefitted, setUnchanged } from './report/status.js';
+import { elementTag } from './report/table.js';
+import type { ElementReport, FileReport, MachineSummary } from './report/types.js';
+import { arcGeometry } from './fit/segment.js';
+import { strokeKey } from './machine/colour.js';
+import { machineDigits } from './machine/digits.js';
+import type { MachineElement } from './machine/drawing.js';
+import { loadProfile } from './machine/profile.js';
+import { straightEstimate, writeMachineFile, type MachineFile } from './machine/program.js';
+
+/** What {@link refitToMachine} gives. */
+export interface MachineRefitResult {
+  /** The machine file's text. */
+  text: string;
+  /** The report, with `machine` set. */
+  report: FileReport;
+  /** The written file with its proof and time estimate. */
+  machine: MachineFile;
+}
+
+const now = (): number => performance.now();
+const USE_ELEMENT = /<(?:[A-Za-z_][\w.-]*:)?use[\s/>]/;
+
+/**
+ * Refit an SVG document into a G-code or DXF file (`options.format`), with the
+ * profile `options.machineProfile` and origin `options.machineOrigin`.
+ * @throws SvgInputError for unreadable input; OptionError (ProfileError) for bad options
+ */
+export function refitToMachine(text: string, options: ArcsplineOptions = {}, file: string | null = null): MachineRefitResult {
+  const t0 = now();
+  const opts = resolveOptions(options);
+  if (opts.format === 'svg') throw new RangeError('refitToMachine writes gcode or dxf; use refitSvg for SVG');
+  const format = opts.format;
+  const profile = loadProfile(opts.machineProfile);
+  const doc = readSvg(text, { assumedMmPerUnit: opts.assumedMmPerUnit, maxInputChars: opts.maxInputBytes });
+  const warnings = doc.warnings.slice();
+  const untouched = untouchedSummary(doc);
+  if (untouched) warnings.push(untouched);
+  const copies = copiesSummary(doc, opts.tolerance);
+  if (copies) warnings.push(copies);
+  if (USE_ELEMENT.test(text)) warnings.push('<use> copies are not expanded into the machine file: only the geometry they refer to, where it stands, is written');
+  // One number format for the whole file: enough decimals for the tightest element.
+  let tightest = opts.tolerance;
+  for (const el of doc.elements) if (el.rewritable) tightest = Math.min(tightest, opts.tolerance / Math.max(1, el.copyScale));
+  const digits = opts.digits ?? machineDigits(tightest);
+  const reports: ElementReport[] = [];
+  const elements: MachineElement[] = [];
+  const models = new Map<number, { model: DrawingElement; report: ElementReport }>();
+  const what = format === 'gcode' ? 'G-code' : 'DXF';
+  for (const el of doc.elements) {
+    if (!el.rewritable) {
+      reports.push(untouchedReport(el));
+      continue;
+    }
+    const p = readGeometry(el, warnings);
+    if (!p || p.ops.length === 0) continue;
+    const report = baseReport(el, p);
+    reports.push(report);
+    const tol = opts.tolerance / Math.max(1, el.copyScale);
+    const model = drawingElementFromSvg(el, p, tol, 1, digits);
+    if (!('contours' in model)) {
+      setUnchanged(report, model.reason, model.message);
+      warnings.push(`${elementTag(el)}: not written to the ${what} file: ${model.message}`);
+      continue;
+    }
+    const fitted = fitElement(model, opts.cornerAngle);
+    let arcs = 0, lines = 0;
+    for (const c of fitted.contours) {
+      report.straightMovesNeeded += c.straightMovesNeeded;
+      for (const s of c.segments) if (arcGeometry(s)) arcs++; else lines++;
+    }
+    report.segmentsAfter = { arcs, lines };
+    elements.push({
+      index: el.index, label: el.id ? `${el.name}#${el.id}` : el.name, group: strokeKey(model.style.stroke), toleranceMm: tol,
+      contours: fitted.contours.map((c) => ({ segments: c.segments, closed: c.contour.closed })),
+      original: { path: p, toMm: el.toMm },
+    });
+    models.set(el.index, { model, report });
+  }
+  const drawing = { pageHeightMm: doc.pageMm[1], elements, source: file };
+  const run = { format, tolerance: opts.tolerance, profile, origin: opts.machineOrigin, digits };
+  let out = writeMachineFile(drawing, run);
+  const failed = new Set(out.proof.elements.filter((e) => !e.ok).map((e) => e.index));
+  if (failed.size > 0) {
+    // As the SVG output keeps an original: the flattened polyline (within the flattening share) instead of the fit.
+    for (const m of elements) {
+      if (!failed.has(m.index)) continue;
+      const { model, report } = models.get(m.index)!;
+      const first = out.proof.elements.find((e) => e.index === m.index)!;
+      m.contours = model.contours.map((c) => ({ segments: [], closed: c.closed, xy: c.xy }));
+      setUnchanged(report, 'over-tolerance',
+        `measured deviation ${first.deviation ? `${first.deviation.max.toPrecision(3)} mm` : '(none)'} of the fit is over the tolerance; written as straight moves through the original`);
+      report.segmentsAfter = { arcs: 0, lines: 0 };
+    }
+    out = writeMachineFile(drawing, run);
+  }
+  for (const e of out.proof.elements) {
+    const m = models.get(e.index);
+    if (!m) continue;
+    m.report.deviation = e.deviation;
+    if (m.report.status === 'reverted') continue;
+    if (e.ok) setRefitted(m.report);
+    else setUnchanged(m.report, 'over-tolerance', `measured deviation ${e.deviation ? `${e.deviation.max.toPrecision(3)} mm` : '(none)'} of the ${what} file is over the tolerance`);
+  }
+  for (const p of out.proof.problems) if (!/over the tolerance/.test(p)) warnings.push(`${what} file check: ${p}`);
+  const straight = straightEstimate(
+    [...models.values()].map(({ model }) => ({
+      index: model.index, label: '', group: strokeKey(model.style.stroke), polylines: model.contours.map((c) => ({ xy: c.xy, closed: c.closed })),
+    })), doc.pageMm[1], profile, opts.machineOrigin,
+  );
+  const report = summarise(reports, opts.tolerance, text, out.text, warnings, file, now() - t0);
+  const machine: MachineSummary = {
+    format, profile: profile.name, origin: opts.machineOrigin, digits: out.digits, lines: out.lines,
+    moves: out.moves, checked: out.proof.ok, seconds: out.time.seconds,
+    straight: { moves: straight.moves, seconds: straight.time.seconds },
+  };
+  report.machine = machine;
+  if (!out.proof.ok) report.totals.withinTolerance = false;
+  return { text: out.text, report, machine: out };
+}
