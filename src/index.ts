@@ -37,7 +37,28 @@ export { refitSvgParallel } from './refitParallel.js';
  * returning mm.
  */
 export { DEFAULT_OPTIONS, OPTION_DOCS, OptionError, parseToleranceText, resolveOptions } from './options.js';
-export type { OptionDoc, Options } from './options.js';
+export type { OptionDoc, Options, OutputFormat } from './options.js';
+
+/**
+ * Machine output: `refitToMachine(text, { format: 'gcode' | 'dxf', machineProfile, machineOrigin, … }, file?)`
+ * gives the G-code or DXF text and the report (its `machine` field: lines, moves, estimated time), every
+ * element measured on the file read back by an independent reader. Below it, for a drawing of your own:
+ * `writeMachineFile(drawing, opts)` (write, read back, prove, estimate time), the profiles
+ * (`BUILTIN_PROFILES`, `loadProfile(nameOrJson)`, `parseProfile(object)`, schema/profile.schema.json),
+ * the writers as sinks (`GcodeWriter`, `DxfWriter`) and the motion model (`estimateTime`).
+ */
+export { refitToMachine } from './refitMachine.js';
+export type { MachineRefitResult } from './refitMachine.js';
+export { straightEstimate, writeMachineFile } from './machine/program.js';
+export type { MachineFile, MachineFileOptions, MachineFormat } from './machine/program.js';
+export type { MachineContour, MachineDrawing, MachineElement, MachineOrigin } from './machine/drawing.js';
+export { BUILTIN_PROFILES, ProfileError, loadProfile, parseProfile } from './machine/profile.js';
+export type { ColourSettings, MachineProfile } from './machine/profile.js';
+export { GcodeWriter } from './write/gcode.js';
+export { DxfWriter } from './write/dxf.js';
+export type { MachineSink, MachineMove } from './machine/sink.js';
+export { estimateTime } from './machine/motion.js';
+export type { MotionEstimate, MotionParams } from './machine/motion.js';
 
 /**
  * The fitter on its own: `fitPolyline(xy: Float64Array, opts: FitOptions): FitResult`
@@ -51,7 +72,7 @@ export { arcGeometry } from './fit/segment.js';
 export type { ArcGeometry, Segment } from './fit/segment.js';
 
 /** The report's shape (also schema/report.schema.json); distances in mm. */
-export type { Deviation, ElementReport, FileReport, OutcomeReason, OutcomeStatus } from './report/types.js';
+export type { Deviation, ElementReport, FileReport, MachineSummary, OutcomeReason, OutcomeStatus } from './report/types.js';
 /** Verdicts read off the statuses: `isOverTolerance(element)`, `withinTolerance(elements)`. */
 export { isOverTolerance, withinTolerance } from './report/status.js';
 

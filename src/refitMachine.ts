@@ -12,9 +12,11 @@
  * (status 'reverted', reason 'over-tolerance'), as the SVG output keeps its
  * original, and the file is written and proven again. Geometry that is not
  * drawn where it stands (in defs, hidden) is not written, and `<use>` copies
- * are not expanded (a warning says so).
+ * are not expanded (a warning says so). An element that cannot be modelled
+ * (too few decimals for its tolerance, cannot be flattened) is missing from
+ * the file: a warning names it and the file fails its check (exit status 1).
  */
-import { resolveOptions, type ArcsplineOptions } from './options.js';
+import { OptionError, resolveOptions, type ArcsplineOptions } from './options.js';
 import { readSvg } from './svg/document.js';
 import { drawingElementFromSvg, readGeometry } from './model/fromSvg.js';
 import { fitElement } from './model/fit.js';
@@ -26,7 +28,7 @@ import { elementTag } from './report/table.js';
 import type { ElementReport, FileReport, MachineSummary } from './report/types.js';
 import { arcGeometry } from './fit/segment.js';
 import { strokeKey } from './machine/colour.js';
-import { machineDigits } from './machine/digits.js';
+import { MIN_MACHINE_DIGITS, machineDigits } from './machine/digits.js';
 import type { MachineElement } from './machine/drawing.js';
 import { loadProfile } from './machine/profile.js';
 import { straightEstimate, writeMachineFile, type MachineFile } from './machine/program.js';
@@ -54,6 +56,9 @@ export function refitToMachine(text: string, options: ArcsplineOptions = {}, fil
   const opts = resolveOptions(options);
   if (opts.format === 'svg') throw new RangeError('refitToMachine writes gcode or dxf; use refitSvg for SVG');
   const format = opts.format;
+  if (opts.digits !== null && opts.digits < MIN_MACHINE_DIGITS) {
+    throw new OptionError(`digits ${opts.digits} is too few for a machine file: at least ${MIN_MACHINE_DIGITS} (an interpreter refuses arcs whose two radii differ by more than 0.002 mm)`);
+  }
   const profile = loadProfile(opts.machineProfile);
   const doc = readSvg(text, { assumedMmPerUnit: opts.assumedMmPerUnit, maxInputChars: opts.maxInputBytes });
   const warnings = doc.warnings.slice();
@@ -70,6 +75,7 @@ export function refitToMachine(text: string, options: ArcsplineOptions = {}, fil
   const elements: MachineElement[] = [];
   const models = new Map<number, { model: DrawingElement; report: ElementReport }>();
   const what = format === 'gcode' ? 'G-code' : 'DXF';
+  let missing = 0;
   for (const el of doc.elements) {
     if (!el.rewritable) {
       reports.push(untouchedReport(el));
@@ -84,6 +90,7 @@ export function refitToMachine(text: string, options: ArcsplineOptions = {}, fil
     if (!('contours' in model)) {
       setUnchanged(report, model.reason, model.message);
       warnings.push(`${elementTag(el)}: not written to the ${what} file: ${model.message}`);
+      missing++;
       continue;
     }
     const fitted = fitElement(model, opts.cornerAngle);
@@ -134,10 +141,11 @@ export function refitToMachine(text: string, options: ArcsplineOptions = {}, fil
   const report = summarise(reports, opts.tolerance, text, out.text, warnings, file, now() - t0);
   const machine: MachineSummary = {
     format, profile: profile.name, origin: opts.machineOrigin, digits: out.digits, lines: out.lines,
-    moves: out.moves, checked: out.proof.ok, seconds: out.time.seconds,
+    moves: out.moves, checked: out.proof.ok && missing === 0, seconds: out.time.seconds,
     straight: { moves: straight.moves, seconds: straight.time.seconds },
   };
   report.machine = machine;
-  if (!out.proof.ok) report.totals.withinTolerance = false;
+  // Geometry missing from the file is a failure like a deviation over the tolerance (exit status 1).
+  if (!machine.checked) report.totals.withinTolerance = false;
   return { text: out.text, report, machine: out };
 }

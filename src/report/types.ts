@@ -100,7 +100,7 @@ export interface MachineSummary {
   lines: number;
   /** Moves written: travels (G0), lines (G1, LINE), arcs (G2/G3, ARC). */
   moves: { travels: number; lines: number; arcs: number };
-  /** The reader found every element within its tolerance, nothing drawn outside an element and arc radii within 0.002 mm. */
+  /** Every element was written, and the reader found each within its tolerance, nothing drawn outside an element and arc radii within 0.002 mm. */
   checked: boolean;
   /** Estimated machine time, s (motion model with the profile's feeds; README). */
   seconds: number;
