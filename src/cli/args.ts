@@ -231,7 +231,7 @@ export function buildProgram(out: ProgramOutput, afterHelp: string): Command {
   const program = new Command('arcspline')
     .description('Refit the curves of an SVG cut or plot file with the fewest circular arcs and lines within a tolerance, and report the measured deviation.')
     .argument('<input...>', 'SVG file to refit (.svg, or gzipped .svgz), or - for standard input; or, for a batch, several files, directories (searched for *.svg and *.svgz) and quoted patterns such as "in/**/*.svg"')
-    .option('-o, --output <file>', 'write the refitted SVG here (.svgz: gzipped); - is standard output; for a batch, the output directory (see "Output" and "Batches" below)')
+    .option('-o, --output <file>', 'write the refitted SVG here (.svgz: gzipped; .gcode, .nc, .ngc: G-code; .dxf: DXF); - is standard output; for a batch, the output directory (see "Output", "Machine files" and "Batches" below)')
     .option('--report <file>', 'write the deviation report as JSON here; - is standard output (one file only)')
     .option('--report-lines <file>', 'write one JSON line per file as it finishes (the report of --report, or an error); - is standard output')
     .option('-j, --jobs <n>', `files refitted at once in a batch, or threads for one very large file (default: one per core, here ${availableParallelism()})`, (t: string) => parseCount(t, 'jobs', 1))

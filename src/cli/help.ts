@@ -7,7 +7,7 @@ import { EXIT_CODE_DOCS } from './exitCodes.js';
 
 /** The safety caution, printed by `--help` word for word. */
 export const SAFETY_CAUTION =
-  "arcspline changes geometry. Check the output (for example with the report and a preview) before cutting; follow your machine's manual and local safety rules.";
+  "arcspline changes geometry. Check the output (for example with the report and a preview) before cutting; follow your machine's manual and local safety rules. Run a G-code program in a simulator or as a dry run with the tool off first.";
 
 /** Wrap a paragraph to `width` columns with a hanging indent. */
 function wrap(text: string, width: number, indent = '  '): string {
@@ -42,6 +42,9 @@ export function afterHelpText(width: number): string {
     p('A summary line per file and any warnings go to standard error; --table adds the table of every element (in a batch, one per file).'),
     p('Each file is written back in the encoding it came in (UTF-8, or UTF-16 with its byte order). A .svgz file is read through gzip; the output is gzipped when its name ends in .svgz, plain when it ends in .svg, otherwise like the input.'),
     '',
+    'Machine files:',
+    p('-o part.gcode (or .nc, .ngc) writes G-code, -o part.dxf writes DXF, from the same fit; --format gcode|dxf chooses for standard output and batches (a batch writes NAME.gcode or NAME.dxf). G-code: G21 G90 G17, G0 travel, G1 lines, G2/G3 arcs with I J, machine Y up with the origin at the page\'s lower-left corner (--origin upper-left for the other), tool lines and feeds from a machine profile (--profile laser, pen-z, pen-servo or a JSON file; schema/profile.schema.json). DXF: LINE and ARC entities in mm, one layer per stroke colour. The written file is read back by an independent reader and every element measured against the original; the header comment states tolerance, measured deviation and the estimated machine time.'),
+    '',
     'Batches:',
     p('Several inputs, a directory (searched recursively for *.svg and gzipped *.svgz; other files are counted and ignored) or a quoted pattern ("in/**/*.svg": * within a name, ** across directories, ? one character) make a batch. -o DIR mirrors the input tree under DIR, creating subdirectories; --in-place rewrites each file (with FILE.bak unless --no-backup). An output that would replace an input, or an input inside the output directory, is refused.'),
     p('Files are refitted in parallel in worker threads (--jobs, default one per core), each with a bounded heap (--worker-memory). A file that cannot be read or refitted gives one line naming it and the batch goes on; the exit code is the worst of all files. A progress bar is drawn on a terminal (not when CI is set), and a summary table follows. --report-lines FILE writes one JSON line per file as it finishes: the report --report would write, or {"file", "error": {"exitCode", "message"}}. Ctrl-C stops the batch with exit code 130; files already written are complete and no partial file is left.'),
@@ -57,6 +60,8 @@ export function afterHelpText(width: number): string {
     '  arcspline drawings/ -o cleaned/ --tolerance 0.05mm --report-lines cleaned.jsonl',
     '  arcspline "drawings/**/*.svg" -o cleaned/ --jobs 4',
     '  arcspline measure part.svg part.fit.svg --tolerance 0.05mm',
+    '  arcspline part.svg -o part.gcode --profile pen-z',
+    '  arcspline drawings/ -o cut/ --format dxf',
     '',
     'Exit codes:',
     codes,
