@@ -6,7 +6,7 @@
  * an upper bound of the true one (as for SVG output).
  */
 import type { Matrix } from '../svg/matrixTypes.js';
-import { multiply } from '../svg/matrix.js';
+import { applyX, applyY, multiply } from '../svg/matrix.js';
 import type { Deviation } from '../report/types.js';
 import { SampleBuffer, samplePath } from '../measure/sample.js';
 import { compareSampled } from '../measure/measure.js';
@@ -43,7 +43,10 @@ export interface MachineProof {
 export const RADIUS_CHECK_MM = 0.002;
 
 /**
- * Measure every element of a drawing against its read-back.
+ * Measure every element of a drawing against its read-back. Distances are
+ * measured in machine coordinates; `worstMm` is given back on the page (root
+ * viewport, y down) and `worstUser` in the element's user units, as in an SVG
+ * report (the page ↔ machine flip is its own inverse).
  * @param pageToMachine page mm → machine mm (./drawing.ts)
  * @param tolMm the file's tolerance, mm (sampling and resolution; an element's own `toleranceMm` may be tighter)
  */
@@ -58,6 +61,8 @@ export function proveMachine(elements: readonly MachineElement[], read: ReadBack
     const rb = read.elements.get(el.index);
     const sb = { polylines: rb ? rb.polylines : [], errorBound: read.errorBound };
     const d = sa.polylines.length === 0 && sb.polylines.length === 0 ? null : compareSampled(sa, sb, toMachine, chord);
+    // The report locates the worst spot on the page (y down), as for SVG output: the flip is its own inverse.
+    if (d) d.worstMm = [applyX(pageToMachine, d.worstMm[0], d.worstMm[1]), applyY(pageToMachine, d.worstMm[0], d.worstMm[1])];
     const drawsNothing = sa.polylines.length === 0 && sb.polylines.length === 0;
     const ok = drawsNothing || (d !== null && d.max <= tol);
     out.elements.push({ index: el.index, label: el.label, deviation: d, ok });

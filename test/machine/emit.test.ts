@@ -70,3 +70,16 @@ describe('contours kept as polylines', () => {
     expect(out.proof.maxDeviation).toBeLessThanOrEqual(0.05 / 200); // exact but for the bound's resolution
   });
 });
+
+describe('the worst spot is reported on the page', () => {
+  it('worstMm lies on the page drawing (y down), whatever the origin', () => {
+    // A quarter circle of radius 10 about (0, 0) on the page, between (10, 0) and (0, 10).
+    const job = svgMachineJob(svg('M 10 0 A 10 10 0 0 1 0 10'), 0.05);
+    for (const origin of ['lower-left', 'upper-left'] as const) {
+      const out = writeMachineFile(job.drawing, { format: 'dxf', tolerance: 0.05, profile: BUILTIN_PROFILES.laser, origin });
+      const [x, y] = out.proof.elements[0].deviation!.worstMm;
+      expect(Math.abs(Math.hypot(x, y) - 10)).toBeLessThan(0.06);
+      expect(y).toBeGreaterThanOrEqual(-0.06);
+    }
+  });
+});
