@@ -16,6 +16,8 @@ import { straightProgram, writeMachineFile } from '../src/machine/program.js';
 import { readBackGcode } from '../src/machine/readback.js';
 import { BUILTIN_PROFILES } from '../src/machine/profile.js';
 import { bigDrawing } from './bigfile.js';
+import { refitSvg } from '../src/refit.js';
+import { refitToMachine } from '../src/refitMachine.js';
 import { fmt, median } from './stats.js';
 
 const SAMPLES = ['coaster.svg', 'bracket.svg', 'gear.svg', 'icons/heart.svg', 'icons/tag.svg', 'icons/target.svg', 'icons/wave.svg'];
@@ -69,7 +71,24 @@ export function benchMachine(runs = 3): string {
   const big = svgMachineJob(bigDrawing(), 0.05, 'bigfile');
   const fitMs = performance.now() - t0;
   rows.push(row('1M-vertex drawing (0.05 mm)', big, 0.05, runs));
-  return `machine output (G-code, laser profile; samples at 0.1 mm; medians of ${runs}; the big drawing read and fitted once in ${fmt(fitMs / 1000, 1)} s)\n${table(rows)}`;
+  return `machine output (G-code, laser profile; samples at 0.1 mm; medians of ${runs}; the big drawing read and fitted once in ${fmt(fitMs / 1000, 1)} s)\n${table(rows)}\n${pipelineLine(runs)}`;
+}
+
+/** The whole job on the big drawing: SVG output against G-code output, same process, interleaved, medians. */
+function pipelineLine(runs: number): string {
+  const text = bigDrawing();
+  const svg: number[] = [], gcode: number[] = [];
+  refitToMachine(text, { tolerance: 0.05, format: 'gcode' }); // warm-up
+  for (let k = 0; k < runs; k++) {
+    let t0 = performance.now();
+    refitSvg(text, { tolerance: 0.05 });
+    svg.push(performance.now() - t0);
+    t0 = performance.now();
+    refitToMachine(text, { tolerance: 0.05, format: 'gcode' });
+    gcode.push(performance.now() - t0);
+  }
+  const a = median(svg), b = median(gcode);
+  return `whole job on the big drawing: refitSvg ${fmt(a / 1000, 2)} s, refitToMachine (G-code, read back and proven) ${fmt(b / 1000, 2)} s, ${fmt(b / a, 2)}× (medians of ${runs})`;
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) console.log(benchMachine());
