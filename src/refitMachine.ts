@@ -12,7 +12,8 @@
  * (status 'reverted', reason 'over-tolerance'), as the SVG output keeps its
  * original, and the file is written and proven again. Geometry that is not
  * drawn where it stands (in defs, hidden) is not written, and `<use>` copies
- * are not expanded (a warning says so). An element that cannot be modelled
+ * are not expanded, and point marks (subpaths that draw only a point) are
+ * not written (warnings say so). An element that cannot be modelled
  * (too few decimals for its tolerance, cannot be flattened) is missing from
  * the file: a warning names it and the file fails its check (exit status 1).
  */
@@ -27,6 +28,7 @@ import { setRefitted, setUnchanged } from './report/status.js';
 import { elementTag } from './report/table.js';
 import type { ElementReport, FileReport, MachineSummary } from './report/types.js';
 import { arcGeometry } from './fit/segment.js';
+import { OP_A, OP_ARGS, OP_M, type PathData } from './svg/pathTypes.js';
 import { strokeKey } from './machine/colour.js';
 import { MIN_MACHINE_DIGITS, machineDigits } from './machine/digits.js';
 import type { MachineElement } from './machine/drawing.js';
@@ -44,6 +46,35 @@ export interface MachineRefitResult {
 }
 
 const now = (): number => performance.now();
+
+/**
+ * The path data without its subpaths that draw only a point (a pierce mark such as `M x y Z`): they are
+ * not written to a machine file (a warning says so), so the proof measures against the rest.
+ */
+export function withoutPointSubpaths(p: PathData): PathData {
+  const ops: number[] = [], args: number[] = [];
+  let i = 0, j = 0;
+  while (i < p.ops.length) {
+    // One subpath: from a moveto (or the start) up to the next moveto.
+    const i0 = i, j0 = j;
+    let still = true;
+    const sx = p.ops[i] === OP_M ? p.args[j] : NaN, sy = p.ops[i] === OP_M ? p.args[j + 1] : NaN;
+    do {
+      const op = p.ops[i], n = OP_ARGS[op];
+      if (op !== OP_M) {
+        const first = op === OP_A ? 5 : 0;
+        for (let k = first; k + 1 < n; k += 2) if (p.args[j + k] !== sx || p.args[j + k + 1] !== sy) still = false;
+      }
+      i++;
+      j += n;
+    } while (i < p.ops.length && p.ops[i] !== OP_M);
+    const draws = i - i0 > 1;
+    if (draws && still) continue;
+    for (let k = i0; k < i; k++) ops.push(p.ops[k]);
+    for (let k = j0; k < j; k++) args.push(p.args[k]);
+  }
+  return { ops: Uint8Array.from(ops), args: Float64Array.from(args) };
+}
 const USE_ELEMENT = /<(?:[A-Za-z_][\w.-]*:)?use[\s/>]/;
 
 /**
@@ -75,7 +106,7 @@ export function refitToMachine(text: string, options: ArcsplineOptions = {}, fil
   const elements: MachineElement[] = [];
   const models = new Map<number, { model: DrawingElement; report: ElementReport }>();
   const what = format === 'gcode' ? 'G-code' : 'DXF';
-  let missing = 0;
+  let missing = 0, points = 0;
   for (const el of doc.elements) {
     if (!el.rewritable) {
       reports.push(untouchedReport(el));
@@ -94,6 +125,7 @@ export function refitToMachine(text: string, options: ArcsplineOptions = {}, fil
       continue;
     }
     const fitted = fitElement(model, opts.cornerAngle);
+    points += model.points.length / 2;
     let arcs = 0, lines = 0;
     for (const c of fitted.contours) {
       report.straightMovesNeeded += c.straightMovesNeeded;
@@ -103,10 +135,11 @@ export function refitToMachine(text: string, options: ArcsplineOptions = {}, fil
     elements.push({
       index: el.index, label: el.id ? `${el.name}#${el.id}` : el.name, group: strokeKey(model.style.stroke), toleranceMm: tol,
       contours: fitted.contours.map((c) => ({ segments: c.segments, closed: c.contour.closed })),
-      original: { path: p, toMm: el.toMm },
+      original: { path: model.points.length > 0 ? withoutPointSubpaths(p) : p, toMm: el.toMm },
     });
     models.set(el.index, { model, report });
   }
+  if (points > 0) warnings.push(`${points === 1 ? '1 point mark (a subpath that draws only a point) is' : `${points} point marks (subpaths that draw only a point) are`} not written to the ${what} file`);
   const drawing = { pageHeightMm: doc.pageMm[1], elements, source: file };
   const run = { format, tolerance: opts.tolerance, profile, origin: opts.machineOrigin, digits };
   let out = writeMachineFile(drawing, run);
@@ -129,7 +162,8 @@ export function refitToMachine(text: string, options: ArcsplineOptions = {}, fil
     if (!m) continue;
     m.report.deviation = e.deviation;
     if (m.report.status === 'reverted') continue;
-    if (e.ok) setRefitted(m.report);
+    if (e.ok && e.deviation === null) setUnchanged(m.report, 'nothing-to-measure', `draws only point marks, which are not written to the ${what} file`);
+    else if (e.ok) setRefitted(m.report);
     else setUnchanged(m.report, 'over-tolerance', `measured deviation ${e.deviation ? `${e.deviation.max.toPrecision(3)} mm` : '(none)'} of the ${what} file is over the tolerance`);
   }
   for (const p of out.proof.problems) if (!/over the tolerance/.test(p)) warnings.push(`${what} file check: ${p}`);

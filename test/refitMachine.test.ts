@@ -69,3 +69,16 @@ describe('refitToMachine', () => {
     expect(r.report.warnings.join('\n')).toMatch(/not written to the G-code file: too few decimals/);
   });
 });
+
+describe('point marks', () => {
+  it('subpaths that draw only a point are left out of the file and of the proof, with a warning', () => {
+    const svg = '<svg xmlns="http://www.w3.org/2000/svg" width="50mm" height="50mm" viewBox="0 0 50 50">' +
+      '<path d="M10 10 Z M20 20 L30 20"/><path d="M5 5 Z"/></svg>';
+    const r = refitToMachine(svg, { format: 'gcode' });
+    expect(r.report.machine!.checked).toBe(true);
+    expect(r.report.elements.map((e) => e.status)).toEqual(['refitted', 'reverted']);
+    expect(r.report.elements[1].keptReason).toMatch(/only point marks/);
+    expect(r.report.warnings).toContain('2 point marks (subpaths that draw only a point) are not written to the G-code file');
+    expect(r.text).toContain('\nG1 X30 Y30 F1200\n');
+  });
+});
