@@ -39,7 +39,7 @@ export interface MachineProfile {
   toolOn: string[];
   /** Lines that stop the tool (before travel, and at the end). */
   toolOff: string[];
-  /** Lines at the end of the program (after the last tool off). */
+  /** Lines at the end of the program (after the last tool-off, which the writer always adds). */
   end: string[];
   /** Time model: path acceleration limit, mm/s². */
   acceleration: number;
@@ -69,17 +69,17 @@ export const BUILTIN_PROFILES: Readonly<Record<string, MachineProfile>> = Object
   laser: {
     name: 'laser', description: 'generic diode or CO2 laser: M4 S<power> on, M5 off',
     travelFeed: 6000, workFeed: 1200, power: 1000, ...COMMON,
-    preamble: ['M5'], toolOn: ['M4 S{power}'], toolOff: ['M5'], end: ['M5', 'M2'], toolSwitchSeconds: 0,
+    preamble: ['M5'], toolOn: ['M4 S{power}'], toolOff: ['M5'], end: ['M2'], toolSwitchSeconds: 0,
   },
   'pen-z': {
     name: 'pen-z', description: 'pen plotter or drag knife moved in Z: down to Z0, up to Z5',
     travelFeed: 3000, workFeed: 1500, power: 0, ...COMMON,
-    preamble: ['G0 Z5'], toolOn: ['G1 Z0 F600'], toolOff: ['G0 Z5'], end: ['G0 Z5', 'M2'], toolSwitchSeconds: 0.1,
+    preamble: ['G0 Z5'], toolOn: ['G1 Z0 F600'], toolOff: ['G0 Z5'], end: ['M2'], toolSwitchSeconds: 0.1,
   },
   'pen-servo': {
     name: 'pen-servo', description: 'pen lifted by a servo on the spindle output: M3 S<power> down, M5 up, with a dwell',
     travelFeed: 3000, workFeed: 1500, power: 30, ...COMMON,
-    preamble: ['M5', 'G4 P0.2'], toolOn: ['M3 S{power}', 'G4 P0.2'], toolOff: ['M5', 'G4 P0.2'], end: ['M5', 'M2'], toolSwitchSeconds: 0.2,
+    preamble: ['M5', 'G4 P0.2'], toolOn: ['M3 S{power}', 'G4 P0.2'], toolOff: ['M5', 'G4 P0.2'], end: ['M2'], toolSwitchSeconds: 0.2,
   },
 });
 

@@ -64,7 +64,7 @@ describe('G-code writer', () => {
     expect(w.lines()).toEqual([
       'G21 G90 G17 G94', 'M5', '(element 1 path#a stroke #000000)',
       'G0 X0 Y0', 'M4 S1000', 'G1 X10 Y0 F1200', 'G1 X10 Y10', 'M5',
-      'G0 X20 Y20', 'M4 S1000', 'G1 X30 Y20 F1200', 'M5', 'M5', 'M2',
+      'G0 X20 Y20', 'M4 S1000', 'G1 X30 Y20 F1200', 'M5', 'M2',
     ]);
   });
 
