@@ -133,7 +133,11 @@ export class DxfWriter implements MachineSink {
     const a0 = Math.atan2(sy - oy, sx - ox) * DEG, a1 = Math.atan2(ey - oy, ex - ox) * DEG;
     const [from, to] = ccw ? [a0, a1] : [a1, a0];
     const ad = angleDigits(this.d, r);
-    const ang = (a: number): string => this.n(((a % 360) + 360) % 360, ad);
+    // In [0, 360): an angle just under 360 that rounds up to it is written as 0 (the same direction).
+    const ang = (a: number): string => {
+      const t = this.n(((a % 360) + 360) % 360, ad);
+      return Number(t) >= 360 ? this.n(0, ad) : t;
+    };
     this.push(`0\nARC\n8\n${this.layer}\n10\n${this.n(ox)}\n20\n${this.n(oy)}\n30\n0\n40\n${this.n(r)}\n50\n${ang(from)}\n51\n${ang(to)}\n`);
     this.x = ex;
     this.y = ey;
