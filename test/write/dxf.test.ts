@@ -40,10 +40,10 @@ describe('DXF writer', () => {
   it('an angle a hair under 360° is written 0, not 360 (group codes 50/51 are in [0°, 360°): Autodesk DXF reference)', () => {
     const w = new DxfWriter(3);
     w.beginElement({ index: 1, label: 'a', group: '#000000' });
-    // Start at angle −1e-9 rad about (0, 0), r 10: one unit in the last angle decimal would round it up to 360.
-    const a = -1e-9;
-    w.moveTo(10 * Math.cos(a), 10 * Math.sin(a));
-    w.arcTo(0, 10, 0, 0, true);
+    // The centre is put on the rounded chord's bisector: a centre given a hair above the x axis lands there,
+    // so the start (10, 0) sits at an angle of about −3e-9°, which rounds up to 360.
+    w.moveTo(10, 0);
+    w.arcTo(0, 10, 0, 1e-9, true);
     const text = w.toString();
     expect(text).toContain('\n50\n0\n51\n90\n');
     expect(text).not.toMatch(/\n5[01]\n360\n/);
