@@ -11,14 +11,15 @@ import type { Segment } from '../fit/segment.js';
 import type { ToleranceSplit } from '../budget.js';
 import type { OutcomeReason, OutcomeStatus } from '../report/types.js';
 
-/** How an element is drawn: the properties a cutter or plotter maps to its operations. */
+/** How an element is drawn (its computed style): the properties a cutter or plotter maps to its operations. */
 export interface DrawingStyle {
-  /** Stroke paint as written (`#ff0000`, `red`, `none`), or null when not set. */
-  stroke: string | null;
-  /** Fill paint as written, or null when not set (SVG's initial value is black). */
-  fill: string | null;
-  /** Stroke width in mm on the machine (the element's scale applied), or null when not set. */
-  strokeWidthMm: number | null;
+  /** Stroke paint: `none`, `#rrggbb` (`#rrggbbaa` when not opaque), or `url(#id)` with an optional fallback. */
+  stroke: string;
+  /** Fill paint, as `stroke` (SVG's initial value is black, `#000000`). */
+  fill: string;
+  /** Stroke width in mm on the machine (the element's scale applied; with non-scaling-stroke, the root's). */
+  strokeWidthMm: number;
+  fillRule: 'nonzero' | 'evenodd';
 }
 
 /** One contour in mm: flat x,y pairs (root viewport, y down), open or closed. */

@@ -94,7 +94,7 @@ export function drawingElementFromSvg(
   }
   return {
     index: el.index, id: el.id, name: el.name, group: el.group,
-    style: resolveStyle(el.attrs, el.inheritedStyle, el.toMm, el.viewportW, el.viewportH),
+    style: resolveStyle(el),
     contours, points, curved, toleranceMm: tolMm, budget,
   };
 }

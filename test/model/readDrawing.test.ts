@@ -21,7 +21,7 @@ describe('readDrawing', () => {
     const hole = fitDrawing(d, 30).find((f) => f.element.id === 'hole-left')!;
     expect(hole.element.group).toBe('cut');
     // Its style comes from <g id="cut" fill="none" stroke="#d00" stroke-width="0.1">, 1 unit = 1 mm.
-    expect(hole.element.style).toMatchObject({ stroke: '#d00', fill: 'none' });
+    expect(hole.element.style).toMatchObject({ stroke: '#dd0000', fill: 'none' });
     expect(hole.element.style.strokeWidthMm).toBeCloseTo(0.1, 12);
     const segs = hole.contours[0].segments;
     expect(segs.length).toBeGreaterThan(0);
