@@ -16,7 +16,6 @@
  */
 import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { SaxesParser } from 'saxes';
 import { describe, expect, it } from 'vitest';
 import { refitSvg } from '../../src/refit.js';
@@ -24,9 +23,9 @@ import { readSvg, type ElementStyle, type GeometryElement } from '../../src/svg/
 import type { Matrix } from '../../src/svg/matrixTypes.js';
 import { DEFAULT_OPTIONS } from '../../src/options.js';
 import { compareRasters, overWhite, readPng, renderSvg, svgSize } from './render.js';
+import { CORPUS_STRUCTURE as ROOT, structureCorpusSkip } from '../sharedCorpus.js';
 
-const ROOT = fileURLToPath(new URL('../../../shared/corpus/structure', import.meta.url));
-const PRESENT = existsSync(join(ROOT, 'MANIFEST.tsv'));
+const SKIP = structureCorpusSkip();
 const TOLERANCE = 0.05; // mm
 /** Antialiasing allowance, px (as corpus.test.ts; common practice). */
 const AA_PX = 1.5;
@@ -109,10 +108,8 @@ function readersView(text: string, root: Record<string, string>): string {
   return `<svg xmlns="http://www.w3.org/2000/svg" ${frame}>${items.map((i) => i.svg).join('')}</svg>`;
 }
 
-if (!PRESENT && !process.env.CI) console.log('structure corpus skipped: ../shared/corpus/structure is absent');
-
-describe.skipIf(!PRESENT && !process.env.CI)('structure corpus', () => {
-  const rows = PRESENT || process.env.CI ? manifest() : [];
+describe.skipIf(SKIP !== null)('structure corpus', () => {
+  const rows = SKIP === null ? manifest() : [];
 
   it('lists 77 files, each with its reference PNG', () => {
     expect(rows.length).toBe(77);
