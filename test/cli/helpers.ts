@@ -57,9 +57,9 @@ export const SMALL = `<svg xmlns="http://www.w3.org/2000/svg" width="100mm" heig
 </svg>
 `;
 
-export const FILE_REPORT_KEYS = ['tool', 'version', 'file', 'toleranceMm', 'bytesIn', 'bytesOut', 'timeMs', 'elements', 'totals', 'warnings'] as const;
+export const FILE_REPORT_KEYS = ['tool', 'version', 'file', 'toleranceMm', 'bytesIn', 'bytesOut', 'timeMs', 'elements', 'totals', 'paints', 'warnings'] as const;
 export const TOTALS_KEYS = ['elements', 'rewritten', 'kept', 'commandsBefore', 'segmentsAfter', 'maxDeviation', 'withinTolerance'] as const;
-export const ELEMENT_KEYS = ['index', 'name', 'id', 'ancestors', 'commandsBefore', 'straightMovesNeeded', 'segmentsAfter', 'deviation', 'kept', 'keptReason', 'status', 'reason'] as const;
+export const ELEMENT_KEYS = ['index', 'name', 'id', 'ancestors', 'commandsBefore', 'straightMovesNeeded', 'segmentsAfter', 'deviation', 'kept', 'keptReason', 'status', 'reason', 'style', 'copies'] as const;
 export const DEVIATION_KEYS = ['max', 'originalToResult', 'resultToOriginal', 'mean', 'worstMm', 'worstUser'] as const;
 
 // The lists above must name every field: a field added to the types without a test fails to compile here.

@@ -76,4 +76,14 @@ describe('a print-oriented file: colours from class rules', () => {
     expect(byId.filter((e) => !e.kept).map((e) => e.name)).toEqual(expect.arrayContaining(['polygon', 'polyline']));
     expect(r.text).toContain('<g id="guides" class="guide"><path class="cut" d="M0 100 H300"/></g>');
   });
+
+  it('the report groups the drawn elements by those colours, and each element carries its paint', () => {
+    const r = refitSvg(PRINT_FILE, { tolerance: 0.05 });
+    expect(r.report.paints.map((g) => [g.stroke, g.fill, g.elements])).toEqual([
+      ['#ff0000', 'none', 3], ['#0000ff', 'none', 2], ['none', '#1a1a1a', 1],
+    ]);
+    const cut = r.report.paints[0];
+    expect(cut.rewritten).toBe(r.report.elements.filter((e) => e.style.stroke === '#ff0000' && e.status === 'refitted').length);
+    expect(r.report.elements[0].style).toEqual({ stroke: '#ff0000', fill: 'none', strokeWidthMm: expect.closeTo(0.01, 12) });
+  });
 });
