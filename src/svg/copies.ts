@@ -40,7 +40,7 @@
 import type { Matrix } from './matrixTypes.js';
 import { identityMatrix, invert, matrix, multiply } from './matrix.js';
 import { lengthToUser } from './units.js';
-import { copyScales, MAX_CHAIN, viewportCopies } from './copyFactor.js';
+import { copyScales, MAX_CHAIN, viewportClip, viewportCopies } from './copyFactor.js';
 
 export { copyScales, MAX_CHAIN } from './copyFactor.js';
 
@@ -66,6 +66,14 @@ export interface TargetViewport {
   own: Matrix | null;
   /** Its attributes (x, y, width, height, viewBox, preserveAspectRatio). */
   at: Record<string, string>;
+  /** Whether its viewport clips what it draws (computed overflow hidden, scroll or clip). */
+  clips: boolean;
+}
+
+/** A viewport that clips a copy: the rectangle [x, y, w, h] in the coordinates `toRoot` maps to root user units. */
+export interface ClipRect {
+  toRoot: Matrix;
+  rect: [number, number, number, number];
 }
 
 /** A `<use>` element: what it points at and where it places it. */
@@ -92,6 +100,8 @@ export interface CopyPlace {
   /** Document index of the use that draws it (the innermost of a chain), and of that use's target. */
   use: number;
   target: number;
+  /** The viewports of symbols and svg elements the copy is drawn through (each clips it), innermost first. */
+  clips: ClipRect[];
 }
 
 const XLINK_NS = 'http://www.w3.org/1999/xlink';
@@ -117,10 +127,11 @@ export class CopyRecorder {
    * @param ns prefix → namespace URI in scope, for xlink:href
    * @param vw, vh size of the nearest viewport, for percentages in x and y
    * @param own the element's own transform, or null
+   * @param clips whether, as a viewport target (svg, symbol), it clips what it draws
    */
   open(
     index: number, depth: number, name: string | null, id: string | null, at: Record<string, string>,
-    ctm: Matrix, parentCtm: Matrix | null, ns: Record<string, string>, vw: number, vh: number, own: Matrix | null = null,
+    ctm: Matrix, parentCtm: Matrix | null, ns: Record<string, string>, vw: number, vh: number, own: Matrix | null = null, clips = true,
   ): void {
     this.parentOf[index] = depth > 0 ? this.indexAt[depth - 1] : -1;
     this.indexAt[depth] = index;
@@ -128,7 +139,7 @@ export class CopyRecorder {
     this.idAt[depth] = null;
     if (id !== null && !this.targets.has(id)) {
       const viewport: TargetViewport | null = (name === 'svg' && depth > 0) || name === 'symbol'
-        ? { kind: name === 'svg' ? 'svg' : 'symbol', inner: ctm, own, at }
+        ? { kind: name === 'svg' ? 'svg' : 'symbol', inner: ctm, own, at, clips }
         : null;
       this.targets.set(id, { first: index, last: index, parentCtm: parentCtm ?? identityMatrix(), isSvg: name === 'svg', viewport });
       this.idAt[depth] = id;
@@ -203,7 +214,7 @@ export class CopyRecorder {
    */
   copiesOf(positions: readonly number[], maxCopies = 4096): CopyPlace[][] {
     if (this.uses.length === 0) return positions.map(() => []);
-    const usesOf = new Map<number, { at: number; map: Matrix; target: number }[]>();
+    const usesOf = new Map<number, { at: number; map: Matrix; target: number; clip: ClipRect | null }[]>();
     for (const u of this.uses) {
       const t = this.targets.get(u.target);
       if (!t || (u.index >= t.first && u.index <= t.last)) continue;
@@ -217,7 +228,7 @@ export class CopyRecorder {
       }
       if (map === null) continue;
       const list = usesOf.get(t.first) ?? [];
-      list.push({ at: u.index, map, target: t.first });
+      list.push({ at: u.index, map, target: t.first, clip: t.viewport !== null ? viewportClip(t.viewport, u) : null });
       usesOf.set(t.first, list);
     }
     const memo = new Map<number, CopyPlace[]>();
@@ -227,7 +238,7 @@ export class CopyRecorder {
       const out: CopyPlace[] = [];
       if (hops > MAX_CHAIN) return out;
       memo.set(pos, out); // a cycle finds this (empty so far) list and adds nothing
-      if (this.inPlace[pos]) out.push({ map: identityMatrix(), use: -1, target: -1 });
+      if (this.inPlace[pos]) out.push({ map: identityMatrix(), use: -1, target: -1, clips: [] });
       for (let a = pos; a >= 0 && out.length < maxCopies; a = this.parentOf[a]) {
         if (this.blockOf[pos] >= this.depthOf[a]) break;
         const us = usesOf.get(a);
@@ -235,7 +246,9 @@ export class CopyRecorder {
         for (const u of us) {
           for (const w of placesOf(u.at, hops + 1)) {
             if (out.length >= maxCopies) break;
-            out.push({ map: multiply(new Float64Array(6), w.map, u.map), use: u.at, target: u.target });
+            // The use's own viewport, then those the use itself is drawn through, all carried to where this copy is.
+            const clips = u.clip ? [{ toRoot: multiply(new Float64Array(6), w.map, u.clip.toRoot), rect: u.clip.rect }, ...w.clips] : w.clips;
+            out.push({ map: multiply(new Float64Array(6), w.map, u.map), use: u.at, target: u.target, clips });
           }
         }
       }

@@ -22,6 +22,23 @@ export function viewportMap(v: TargetViewport, use: UseRef): Matrix {
   return vb !== null ? viewBoxTransform(vb, parsePreserveAspectRatio(at.preserveAspectRatio), x, y, w, h) : matrix(1, 0, 0, 1, x, y);
 }
 
+/**
+ * The viewport a use gives a viewport target, as a rectangle [x, y, w, h] in
+ * the coordinates `toRoot` maps to root user units (the use's placement,
+ * then the target's own transform), or null when it does not clip
+ * (overflow visible or auto).
+ */
+export function viewportClip(v: TargetViewport, use: UseRef): { toRoot: Matrix; rect: [number, number, number, number] } | null {
+  if (!v.clips) return null;
+  const at = v.at;
+  const w = lengthToUser(use.width ?? at.width, use.vw, use.vw);
+  const h = lengthToUser(use.height ?? at.height, use.vh, use.vh);
+  const x = v.kind === 'svg' ? lengthToUser(at.x, use.vw, 0) : 0;
+  const y = v.kind === 'svg' ? lengthToUser(at.y, use.vh, 0) : 0;
+  const own = v.kind === 'svg' && v.own ? v.own : null;
+  return { toRoot: own ? multiply(new Float64Array(6), use.placement, own) : use.placement, rect: [x, y, w, h] };
+}
+
 /** The largest factor a use's copy of a viewport target applies to its content, in root units (before the mm conjugation). */
 export function viewportCopies(v: TargetViewport, use: UseRef): Matrix[] {
   const back = invert(new Float64Array(6), v.inner);

@@ -320,7 +320,8 @@ function readPass(text: string, opts: ReadOptions, matched: (Decl[] | undefined)
         copies: NO_COPIES,
       });
     }
-    copies.open(index, depth, isSvg ? local : null, id, at, ctm, parentCtm, ns, w, h, own);
+    const ov = computed.values.overflow;
+    copies.open(index, depth, isSvg ? local : null, id, at, ctm, parentCtm, ns, w, h, own, ov === 'hidden' || ov === 'scroll' || ov === 'clip');
     copies.state(index, block, reason === null);
     let forChildren = reason;
     if (forChildren === null) {

@@ -4,6 +4,7 @@
  */
 import type { Matrix } from './matrixTypes.js';
 import type { ElementStyle } from './style/elementStyle.js';
+import type { ClipRect } from './copies.js';
 
 export type { ElementStyle } from './style/elementStyle.js';
 
@@ -62,6 +63,8 @@ export interface ElementCopy {
   style: ElementStyle;
   /** Document index of the use that draws it. */
   use: number;
+  /** Viewports (of symbols, svg elements) that clip this copy, innermost first; the rectangles are in the coordinates `toRoot` maps to root user units. */
+  clips: ClipRect[];
 }
 
 /** A read document: the original text and what we found in it. */

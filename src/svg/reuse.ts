@@ -69,7 +69,7 @@ export function placeCopies(elements: GeometryElement[], copies: CopyRecorder, r
       const ctm = multiply(new Float64Array(6), p.map, e.ctm);
       const toMm = multiply(new Float64Array(6), rootToMm, ctm);
       const style = elementStyle(copyStyle(e.index, p.target, p.use), toMm, rootToMm, e.viewportW, e.viewportH);
-      return { ctm, toMm, style, use: p.use };
+      return { ctm, toMm, style, use: p.use, clips: p.clips };
     });
   });
 }

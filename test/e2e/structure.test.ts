@@ -40,7 +40,6 @@ const REF_DIFF = 64;
  * rendering check (1) still runs on them.
  */
 const OPACITY = 'group or paint opacity';
-const CLIP = 'the copy is clipped to the use\'s viewport (overflow), which the reader does not compute';
 const NOT_MODELLED: Readonly<Record<string, string>> = {
   'resvg/tests/structure/symbol/opacity-on-symbol-with-viewBox.svg': OPACITY,
   'resvg/tests/structure/symbol/opacity-on-symbol.svg': OPACITY,
@@ -54,16 +53,6 @@ const NOT_MODELLED: Readonly<Record<string, string>> = {
   'resvg/tests/structure/use/stroke-opacity-inheritance.svg': OPACITY,
   'resvg/tests/structure/style/external-CSS.svg': 'the reference fetched an external sheet (@import); arcspline never fetches',
   'resvg/tests/structure/use/xlink-to-an-external-file.svg': 'the reference drew text from an external file; arcspline never fetches',
-  'resvg/tests/structure/symbol/content-outside-the-viewbox.svg': CLIP,
-  'resvg/tests/structure/symbol/with-custom-use-size.svg': CLIP,
-  'resvg/tests/structure/symbol/with-transform-on-use.svg': CLIP,
-  'resvg/tests/structure/symbol/indirect-symbol-reference.svg': CLIP,
-  'resvg/tests/structure/symbol/with-viewBox-and-custom-use-rect.svg': CLIP,
-  'resvg/tests/structure/symbol/with-viewBox-and-custom-use-size.svg': CLIP,
-  'resvg/tests/structure/use/nested-xlink-to-svg-element-with-rect-and-size.svg': CLIP,
-  'resvg/tests/structure/use/xlink-to-svg-element-with-rect-only-width.svg': CLIP,
-  'resvg/tests/structure/use/xlink-to-svg-element-with-rect.svg': CLIP,
-  'resvg/tests/structure/use/xlink-to-svg-element-with-width-height-on-use.svg': CLIP,
 };
 
 interface Row { svg: string; png: string }
@@ -99,13 +88,25 @@ function shape(el: GeometryElement, ctm: Matrix, st: ElementStyle): string {
 function readersView(text: string, root: Record<string, string>): string {
   const doc = readSvg(text, { assumedMmPerUnit: DEFAULT_OPTIONS.assumedMmPerUnit });
   const items: { order: number; sub: number; svg: string }[] = [];
+  const defs: string[] = [];
+  let clipCount = 0;
   for (const el of doc.elements) {
     if (el.reason === null && !el.drawnByUse) items.push({ order: el.index, sub: 0, svg: shape(el, el.ctm, el.style) });
-    for (const c of el.copies) if (c.style.visibility === 'visible') items.push({ order: c.use, sub: el.index, svg: shape(el, c.ctm, c.style) });
+    for (const c of el.copies) {
+      if (c.style.visibility !== 'visible') continue;
+      // Each viewport the copy is drawn through clips it: nested groups, one clip each.
+      let svg = shape(el, c.ctm, c.style);
+      for (const k of c.clips) {
+        const id = `clip${clipCount++}`;
+        defs.push(`<clipPath id="${id}" clipPathUnits="userSpaceOnUse"><rect x="${k.rect[0]}" y="${k.rect[1]}" width="${k.rect[2]}" height="${k.rect[3]}" transform="matrix(${Array.from(k.toRoot).join(' ')})"/></clipPath>`);
+        svg = `<g clip-path="url(#${id})">${svg}</g>`;
+      }
+      items.push({ order: c.use, sub: el.index, svg });
+    }
   }
   items.sort((a, b) => a.order - b.order || a.sub - b.sub);
   const frame = ['viewBox', 'width', 'height', 'preserveAspectRatio'].filter((a) => root[a] !== undefined).map((a) => `${a}="${esc(root[a])}"`).join(' ');
-  return `<svg xmlns="http://www.w3.org/2000/svg" ${frame}>${items.map((i) => i.svg).join('')}</svg>`;
+  return `<svg xmlns="http://www.w3.org/2000/svg" ${frame}><defs>${defs.join('')}</defs>${items.map((i) => i.svg).join('')}</svg>`;
 }
 
 describe.skipIf(SKIP !== null)('structure corpus', () => {

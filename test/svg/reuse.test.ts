@@ -68,6 +68,13 @@ describe('every copy: its place and its style', () => {
     expect(s.copies.map((c) => round(c.toMm))).toEqual([[5, 0, 0, 5, 20, 30]]);
   });
 
+  it('a copy through a symbol is clipped to the viewport the use gives it, unless overflow is visible (SVG 2 §5.5, user-agent sheet §16.1)', () => {
+    const [p] = read('<symbol id="s" viewBox="0 0 10 10"><path id="p" d="M0 0L1 1"/></symbol><use href="#s" x="20" y="30" width="50" height="40"/>');
+    expect(p.copies[0].clips.map((c) => [round(c.toRoot), c.rect])).toEqual([[[1, 0, 0, 1, 20, 30], [0, 0, 50, 40]]]);
+    const [q] = read('<symbol id="s" overflow="visible"><path id="p" d="M0 0L1 1"/></symbol><use href="#s"/>');
+    expect(q.copies[0].clips).toEqual([]);
+  });
+
   it('a copy inherits from its use, not from where the original stands; rules still match the original (S2 §5.6)', () => {
     const [p] = read('<style>#p{stroke:blue}</style><g fill="red"><defs><path id="p" d="M0 0L1 1"/></defs></g><use href="#p" fill="green"/>');
     expect(p.style.fill).toBe('#ff0000');

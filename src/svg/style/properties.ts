@@ -17,7 +17,7 @@ import { parseLength } from '../units.js';
 /** The properties computed for every element. */
 export type PropName =
   | 'display' | 'visibility' | 'fill' | 'stroke' | 'stroke-width' | 'fill-rule' | 'transform' | 'transform-origin'
-  | 'vector-effect' | 'color';
+  | 'vector-effect' | 'color' | 'overflow';
 
 interface PropDef {
   inherited: boolean;
@@ -75,6 +75,8 @@ export const PROPERTIES: Readonly<Record<PropName, PropDef>> = Object.freeze({
   // CT1 §8.1: initial 0 0 for SVG elements; checked where the viewport is known (./cssTransform.ts).
   'transform-origin': { inherited: false, initial: '0 0', parse: (v: string) => (v.trim() === '' ? null : v.trim()) },
   'vector-effect': { inherited: false, initial: 'none', parse: keyword(['none', 'non-scaling-stroke', 'non-scaling-size', 'non-rotation', 'fixed-position']) },
+  // Only elements that make a viewport use it, and SVG 2's user-agent sheet (§16.1) makes all of those but the root hidden.
+  overflow: { inherited: false, initial: 'hidden', parse: keyword(['visible', 'hidden', 'scroll', 'auto', 'clip']) },
   color: { inherited: true, initial: '#000000', parse: (v: string) => normaliseColour(v) },
 });
 
