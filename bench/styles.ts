@@ -56,7 +56,7 @@ export function benchStyles(runs = 7): string {
   const [rPlain, rStyled] = timePair(
     () => readSvg(plain, { assumedMmPerUnit: 1 }).elements.length, () => readSvg(styled, { assumedMmPerUnit: 1 }).elements.length, runs);
   const [fPlain, fStyled] = timePair(
-    () => refitSvg(plain, { tolerance: 0.05 }).report.totals.rewritten, () => refitSvg(styled, { tolerance: 0.05 }).report.totals.rewritten, 3);
+    () => refitSvg(plain, { tolerance: 0.05 }).report.totals.rewritten, () => refitSvg(styled, { tolerance: 0.05 }).report.totals.rewritten, 5);
   return [
     `styles: ${n} paths, paint from 4 class rules in a <style> sheet vs the same paint as presentation attributes; medians`,
     `  readSvg: attributes ${fmt(rPlain, 1)} ms, class rules ${fmt(rStyled, 1)} ms (${fmt(rStyled / rPlain, 2)}×; two passes + matching)`,
