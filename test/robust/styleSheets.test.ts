@@ -79,6 +79,11 @@ describe('nothing is fetched', () => {
     expect(() => refitSvg(text, { tolerance: 0.05 })).not.toThrow();
   });
 
+  it('an external url() in a style attribute warns in every document that has it (parsed once, warned each time)', () => {
+    const body = '<path style="fill:url(http://example.invalid/a.svg#p)" d="M0 0L1 1"/>';
+    for (let k = 0; k < 2; k++) expect(read(body).warnings.some((w) => /external url\(\) .* is not fetched/.test(w))).toBe(true);
+  });
+
   it('an xml-stylesheet processing instruction is never fetched', () => {
     const doc = readSvg(`<?xml-stylesheet href="http://example.invalid/a.css"?><svg ${NS}><rect/></svg>`, { assumedMmPerUnit: 1 });
     expect(doc.warnings.some((w) => /xml-stylesheet ignored/.test(w))).toBe(true);

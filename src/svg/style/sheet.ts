@@ -64,21 +64,26 @@ function declsOf(list: Iterable<CssNode>, warnings: Set<string>): Decl[] {
   return out;
 }
 
-const declCache = new Map<string, Decl[]>();
+const declCache = new Map<string, { decls: Decl[]; notes: string[] }>();
 const DECL_CACHE_MAX = 4096;
 
 /**
  * The declarations of computed properties in a `style` attribute, in order
- * (the same text is parsed once: print files repeat a few styles many times).
+ * (the same text is parsed once: print files repeat a few styles many times;
+ * its warnings are given again to each document that has it).
  */
 export function parseStyleAttribute(text: string, warnings: Set<string>): Decl[] {
-  const hit = declCache.get(text);
-  if (hit !== undefined) return hit;
-  const ast = parse(text, { context: 'declarationList', parseValue: false, onParseError: () => {} });
-  const decls = 'children' in ast && ast.children ? declsOf(ast.children, warnings) : [];
-  if (declCache.size >= DECL_CACHE_MAX) declCache.clear();
-  declCache.set(text, decls);
-  return decls;
+  let hit = declCache.get(text);
+  if (hit === undefined) {
+    const notes = new Set<string>();
+    const ast = parse(text, { context: 'declarationList', parseValue: false, onParseError: () => {} });
+    const decls = 'children' in ast && ast.children ? declsOf(ast.children, notes) : [];
+    if (declCache.size >= DECL_CACHE_MAX) declCache.clear();
+    hit = { decls, notes: [...notes] };
+    declCache.set(text, hit);
+  }
+  for (const n of hit.notes) warnings.add(n);
+  return hit.decls;
 }
 
 /**
