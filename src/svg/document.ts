@@ -236,7 +236,7 @@ function readPass(text: string, opts: ReadOptions, matched: (Decl[] | undefined)
       if (own !== null && origin !== '0 0') {
         // CT1 §8.1: the transform acts about the origin: translate(o) · T · translate(−o).
         const o = parseTransformOrigin(origin, w, h);
-        if (o === null) notes.add(`transform-origin "${origin}" not understood (on <${label}>); 0 0 used`);
+        if (o === null) notes.add(`transform-origin "${origin.slice(0, 60)}" not understood (on <${label}>); 0 0 used`);
         else own = multiply(new Float64Array(6), multiply(new Float64Array(6), matrix(1, 0, 0, 1, o[0], o[1]), own), matrix(1, 0, 0, 1, -o[0], -o[1]));
       }
     }

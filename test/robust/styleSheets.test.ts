@@ -58,6 +58,14 @@ describe('caps on style sheets', () => {
     expect(refused(text)).toMatch(/too costly to match: 1 selectors that scan siblings × 8003 elements × 8000 siblings/);
   });
 
+  it('functions nested 200 000 deep in a CSS transform, transform-origin or a commented value are refused as invalid values, with a warning', () => {
+    const deep = 'a('.repeat(200_000);
+    const doc = read(`<rect style="transform:${deep}"/><rect style="transform:scale(2);transform-origin:${deep}"/><rect style="fill:red/*x*/${deep}"/>`);
+    expect(doc.elements.map((e) => Array.from(e.ctm))).toEqual([[1, 0, 0, 1, 0, 0], [2, 0, 0, 2, 0, 0], [1, 0, 0, 1, 0, 0]]);
+    expect(doc.warnings.some((w) => /CSS transform ignored: not a transform list/.test(w))).toBe(true);
+    expect(doc.warnings.some((w) => /transform-origin .* not understood/.test(w))).toBe(true);
+  });
+
   it('broken CSS is recovered as browsers do: the bad rule or declaration dropped, the rest applied', () => {
     const doc = read('<style>.a{fill:green; stroke:} }} .b{{ .c{fill:red</style><rect class="a"/>');
     expect(doc.elements[0].style.fill).toBe('#008000');

@@ -11,13 +11,32 @@
  * SVG elements, 0 0 (CT1 §8.1); a transform-origin declaration is not read.
  */
 import { parseCss as parse } from './cssTree.js';
-import type { CssNode, FunctionNode } from 'css-tree';
+import type { CssNode, FunctionNode, Value } from 'css-tree';
 import type { Matrix } from '../matrixTypes.js';
 import { identityMatrix, matrix, multiply } from '../matrix.js';
 import { pxPerUnit } from '../units.js';
 
 /** Result of {@link parseCssTransform}: the matrix, or an error message. */
 export type CssTransform = { matrix: Matrix; error: null } | { matrix: null; error: string };
+
+/** Longest value read, characters: a transform list this long is not a drawing's. */
+const MAX_VALUE_CHARS = 65_536;
+
+/**
+ * css-tree's value tree, or null when the text has errors, is too long, or
+ * nests deeper than the parser's stack (hostile input such as a(a(a(…;
+ * transform values never nest functions).
+ */
+function parseValue(text: string): Value | null {
+  if (text.length > MAX_VALUE_CHARS) return null;
+  let errors = 0;
+  try {
+    const ast = parse(text, { context: 'value', onParseError: () => { errors++; } });
+    return errors === 0 && ast.type === 'Value' ? ast : null;
+  } catch {
+    return null;
+  }
+}
 
 const DEG_PER: Readonly<Record<string, number>> = { deg: 1, grad: 0.9, rad: 180 / Math.PI, turn: 360 };
 
@@ -114,9 +133,8 @@ function fnMatrix(name: string, a: Arg[], w: number, h: number): Matrix | null {
 export function parseCssTransform(text: string, w: number, h: number): CssTransform {
   const t = text.trim();
   if (t.toLowerCase() === 'none') return { matrix: identityMatrix(), error: null };
-  let errors = 0;
-  const ast = parse(t, { context: 'value', onParseError: () => { errors++; } });
-  if (errors > 0 || ast.type !== 'Value') return { matrix: null, error: `not a transform list: "${t.slice(0, 60)}"` };
+  const ast = parseValue(t);
+  if (ast === null) return { matrix: null, error: `not a transform list: "${t.slice(0, 60)}"` };
   let m = identityMatrix();
   let count = 0;
   for (const node of ast.children) {
@@ -144,9 +162,8 @@ const ORIGIN_KEYWORD: Readonly<Record<string, { axis: 'x' | 'y' | 'either'; at: 
  * @returns [x, y], or null when invalid
  */
 export function parseTransformOrigin(text: string, w: number, h: number): [number, number] | null {
-  let errors = 0;
-  const ast = parse(text.trim(), { context: 'value', onParseError: () => { errors++; } });
-  if (errors > 0 || ast.type !== 'Value') return null;
+  const ast = parseValue(text.trim());
+  if (ast === null) return null;
   const parts: ({ kw: string } | { len: number | null; pct: number | null })[] = [];
   for (const n of ast.children) {
     if (n.type === 'Identifier') {

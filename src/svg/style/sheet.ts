@@ -57,11 +57,20 @@ function declsOf(list: Iterable<CssNode>, warnings: Set<string>): Decl[] {
     if (!isProp(prop)) continue;
     let value = d.value.type === 'Raw' ? d.value.value : '';
     // A comment inside a value is whitespace (CSS Syntax 3 §4.3.2): let css-tree tokenise it away.
-    if (value.includes('/*')) value = generate(parse(value, { context: 'value', onParseError: () => {} }));
+    if (value.includes('/*')) value = withoutComments(value);
     if (/url\(\s*['"]?(?!#)/i.test(value)) warnings.add(`an external url() in a style (${prop}: ${value.trim().slice(0, 60)}) is not fetched`);
     out.push({ prop, value, important: d.important !== false });
   }
   return out;
+}
+
+/** A value with its comments removed by css-tree; hostile nesting (beyond the parser's stack) leaves it as written, to be refused by its property. */
+function withoutComments(value: string): string {
+  try {
+    return generate(parse(value, { context: 'value', onParseError: () => {} }));
+  } catch {
+    return value;
+  }
 }
 
 const declCache = new Map<string, { decls: Decl[]; notes: string[] }>();
