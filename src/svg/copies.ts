@@ -209,11 +209,13 @@ export class CopyRecorder {
    * stands to where the copy is (root user units; compose with the element's
    * CTM), with the use that draws it (the last of a chain, whose style the
    * copy inherits). Copies of copies through chains of uses are included, up
-   * to `maxCopies` per position. A symbol's own transform is left out here
-   * (SVG 1.1; the bound of `scales` counts it both ways).
+   * to `maxCopies` per position and `maxTotal` over all positions (uses that
+   * multiply copies exponentially are hostile input; `truncated` then says
+   * so). A symbol's own transform is left out here (SVG 1.1; the bound of
+   * `scales` counts it both ways).
    */
-  copiesOf(positions: readonly number[], maxCopies = 4096): CopyPlace[][] {
-    if (this.uses.length === 0) return positions.map(() => []);
+  copiesOf(positions: readonly number[], maxCopies = 4096, maxTotal = 100_000): { places: CopyPlace[][]; truncated: boolean } {
+    if (this.uses.length === 0) return { places: positions.map(() => []), truncated: false };
     const usesOf = new Map<number, { at: number; map: Matrix; target: number; clip: ClipRect | null }[]>();
     for (const u of this.uses) {
       const t = this.targets.get(u.target);
@@ -254,7 +256,17 @@ export class CopyRecorder {
       }
       return out;
     };
-    return positions.map((p) => placesOf(p, 0).filter((c) => c.use >= 0));
+    let total = 0, truncated = false;
+    const places = positions.map((p) => {
+      const list = placesOf(p, 0).filter((c) => c.use >= 0);
+      if (list.length >= maxCopies) truncated = true;
+      const room = Math.max(0, maxTotal - total);
+      if (list.length > room) truncated = true;
+      const kept = list.length > room ? list.slice(0, room) : list;
+      total += kept.length;
+      return kept;
+    });
+    return { places, truncated };
   }
 
   /** `copyScales` for these positions. */

@@ -374,7 +374,8 @@ function readPass(text: string, opts: ReadOptions, matched: (Decl[] | undefined)
     const at = table.attrs[pos];
     return computeStyle(parent, at, matched?.[pos], at.style !== undefined ? parseStyleAttribute(at.style, notes) : null, cssTransformOk);
   };
-  placeCopies(elements, copies, { parent: table.parent, useStyle, restyle }, docRootToMm);
+  const many = placeCopies(elements, copies, { parent: table.parent, useStyle, restyle }, docRootToMm);
+  if (many !== null) notes.add(many);
   const doc = { text, elements, rootToMm: docRootToMm, physicalSize: physical, warnings: [...guard.warnings, ...warnings, ...notes] };
   return { doc, sheets, table };
 }

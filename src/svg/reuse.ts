@@ -34,8 +34,9 @@ function invertible(m: Matrix): boolean {
  * Set `copyScale`, `drawnByUse`, `copies` (and `rewritable`/`reason` where
  * reuse changes them) on every element.
  * @param rootToMm root user units → mm
+ * @returns a warning when not every copy could be listed (the copy factor still bounds them all), else null
  */
-export function placeCopies(elements: GeometryElement[], copies: CopyRecorder, r: Restyler, rootToMm: Matrix): void {
+export function placeCopies(elements: GeometryElement[], copies: CopyRecorder, r: Restyler, rootToMm: Matrix): string | null {
   const positions = elements.map((e) => e.index);
   const scales = copies.scales(positions, rootToMm);
   const drawn = copies.drawnByUse(positions);
@@ -52,7 +53,7 @@ export function placeCopies(elements: GeometryElement[], copies: CopyRecorder, r
       e.reason = `drawn again by <use> at a scale that cannot be bounded (a cycle of uses, a chain of more than ${MAX_CHAIN}, or a singular copy)`;
     }
   });
-  const placed = copies.copiesOf(positions);
+  const { places: placed, truncated } = copies.copiesOf(positions, MAX_COPIES_EACH, MAX_COPIES);
   const copyStyle = (pos: number, target: number, use: number): Computed => {
     const chain: number[] = [];
     for (let a = pos; a >= 0; a = r.parent[a]) {
@@ -72,7 +73,14 @@ export function placeCopies(elements: GeometryElement[], copies: CopyRecorder, r
       return { ctm, toMm, style, use: p.use, clips: p.clips };
     });
   });
+  return truncated
+    ? `uses draw more copies than are listed (at most ${MAX_COPIES_EACH} per element, ${MAX_COPIES} in all): the rest are kept within the tolerance by the copy factor but not measured one by one`
+    : null;
 }
+
+/** Copies listed per element, and over the document (uses nested to multiply copies are hostile input). */
+const MAX_COPIES_EACH = 4096;
+const MAX_COPIES = 100_000;
 
 /**
  * Every place an element is drawn, as its map to mm: where it stands (unless
