@@ -23,6 +23,7 @@ import { shapeToPath } from '../svg/shapes.js';
 import type { PathData } from '../svg/pathTypes.js';
 import type { Matrix } from '../svg/matrixTypes.js';
 import { drawnPlaces } from '../svg/reuse.js';
+import { maxScale } from '../svg/matrix.js';
 import { DEFAULT_OPTIONS } from '../options.js';
 import { measureDeviation, compareSampled, DEFAULT_MAX_SAMPLES } from './measure.js';
 import { samplePath, sampleCount, type SampledPath } from './sample.js';
@@ -86,6 +87,28 @@ export interface GeometryItem {
   places: Matrix[];
 }
 type Item = GeometryItem;
+
+/** Most places of one pair measured one by one (after merging places that differ only by a translation). */
+const MAX_PLACES = 64;
+
+/**
+ * Which of the first `k` places to measure: distances do not change under a
+ * translation, so of places whose maps (in both documents) differ only in
+ * their translation one is enough; beyond MAX_PLACES kinds, those drawn
+ * largest (largest singular value) are kept.
+ */
+function distinctPlaces(a: readonly Matrix[], b: readonly Matrix[], k: number): { indices: number[]; capped: boolean } {
+  const seen = new Map<string, number>();
+  const key = (m: Matrix | undefined): string => (m ? `${m[0]},${m[1]},${m[2]},${m[3]}` : '-');
+  for (let i = 0; i < k; i++) {
+    const kk = `${key(a[i])}|${key(b[i])}`;
+    if (!seen.has(kk)) seen.set(kk, i);
+  }
+  let indices = [...seen.values()];
+  const capped = indices.length > MAX_PLACES;
+  if (capped) indices = indices.sort((p, q) => maxScale(a[q]) - maxScale(a[p])).slice(0, MAX_PLACES);
+  return { indices, capped };
+}
 
 /** Chord error of the whole-document sampling, as a fraction of the tolerance (as in measure.ts). */
 const ERROR_FRACTION = 1 / 1000;
@@ -194,7 +217,9 @@ export function compareSvg(a: string, b: string, opts: CompareOptions): Comparis
     // Every copy is drawn: the pair is measured at each place both draw it (copies pair in order), the worst kept.
     let d: Deviation | null = null;
     const k = Math.max(1, Math.min(x.places.length, y.places.length));
-    for (let i = 0; i < k; i++) {
+    const { indices, capped } = distinctPlaces(x.places, y.places, k);
+    if (capped) wb.push(`<${y.el.name}> (element ${y.el.index}) is drawn in more than ${MAX_PLACES} differently scaled or turned places: measured at the ${MAX_PLACES} drawn largest`);
+    for (const i of indices) {
       const di = measureDeviation(x.path, x.places[i] ?? x.el.toMm, y.path, y.places[i] ?? y.el.toMm, tol);
       if (di !== null && (d === null || di.max > d.max)) d = di;
     }
