@@ -56,6 +56,7 @@ export function baseReport(el: GeometryElement, p: ParsedPath | null): ElementRe
     index: el.index, name: el.name, id: el.id, ancestors: el.ancestors, commandsBefore: commandsOf(el, p),
     straightMovesNeeded: 0, segmentsAfter: { arcs: 0, lines: 0 }, deviation: null,
     kept: true, keptReason: null, status: 'kept', reason: null,
+    style: { stroke: el.style.stroke, fill: el.style.fill, strokeWidthMm: el.style.strokeWidthMm }, copies: el.copies.length,
   };
 }
 

@@ -5,7 +5,7 @@
 import type { SvgDocument } from './svg/document.js';
 import { elementTag } from './report/table.js';
 import { withinTolerance } from './report/status.js';
-import type { ElementReport, FileReport } from './report/types.js';
+import type { ElementReport, FileReport, PaintGroup } from './report/types.js';
 import { VERSION } from './version.js';
 
 /** "1 element", "2 elements". */
@@ -87,6 +87,21 @@ export function summarise(
       elements: elements.length, rewritten, kept: elements.length - rewritten, commandsBefore,
       segmentsAfter: { arcs, lines }, maxDeviation, withinTolerance: withinTolerance(elements),
     },
+    paints: paintGroups(elements),
     warnings,
   };
+}
+
+/** The drawn elements grouped by stroke and fill, in order of first appearance. */
+export function paintGroups(elements: readonly ElementReport[]): PaintGroup[] {
+  const groups = new Map<string, PaintGroup>();
+  for (const e of elements) {
+    if (e.reason === 'not-drawn') continue;
+    const key = `${e.style.stroke}\n${e.style.fill}`;
+    let g = groups.get(key);
+    if (g === undefined) groups.set(key, (g = { stroke: e.style.stroke, fill: e.style.fill, elements: 0, rewritten: 0 }));
+    g.elements++;
+    if (e.status === 'refitted') g.rewritten++;
+  }
+  return [...groups.values()];
 }

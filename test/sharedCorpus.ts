@@ -23,12 +23,23 @@ export function ciIsSet(value: string | undefined): boolean {
  * The decision: `null` to run the corpus tests, or the one-line reason to skip them.
  * @throws Error naming the missing file when CI is set and the corpus is absent
  */
-export function corpusSkipReason(present: boolean, ci: string | undefined): string | null {
+export function corpusSkipReason(present: boolean, ci: string | undefined, manifest: string = MANIFEST): string | null {
   if (present) return null;
   if (ciIsSet(ci)) {
-    throw new Error(`conformance corpus missing: ${MANIFEST} not found, and CI is set, so the tests that need it must run (README, "Set-up")`);
+    throw new Error(`conformance corpus missing: ${manifest} not found, and CI is set, so the tests that need it must run (README, "Set-up")`);
   }
-  return `corpus tests skipped: ${MANIFEST} not found (../shared beside the project) and CI unset`;
+  return `corpus tests skipped: ${manifest} not found (../shared beside the project) and CI unset`;
+}
+
+/** The structure corpus (styles, symbol, use): ../shared/corpus/structure beside the project. */
+export const CORPUS_STRUCTURE = fileURLToPath(new URL('../../shared/corpus/structure', import.meta.url));
+
+/** As {@link sharedCorpusSkip}, for the structure corpus. */
+export function structureCorpusSkip(): string | null {
+  const manifest = join(CORPUS_STRUCTURE, 'MANIFEST.tsv');
+  const reason = corpusSkipReason(existsSync(manifest), process.env.CI, manifest);
+  if (reason !== null) console.warn(reason);
+  return reason;
 }
 
 /** Null when the corpus tests run here; else why they skip (printed once per test file that asks). Throws under CI without the corpus. */

@@ -21,6 +21,9 @@ import { readSvg, type GeometryElement, type SvgDocument } from '../svg/document
 import { parsePathData } from '../svg/pathData.js';
 import { shapeToPath } from '../svg/shapes.js';
 import type { PathData } from '../svg/pathTypes.js';
+import type { Matrix } from '../svg/matrixTypes.js';
+import { drawnPlaces } from '../svg/reuse.js';
+import { maxScale } from '../svg/matrix.js';
 import { DEFAULT_OPTIONS } from '../options.js';
 import { measureDeviation, compareSampled, DEFAULT_MAX_SAMPLES } from './measure.js';
 import { samplePath, sampleCount, type SampledPath } from './sample.js';
@@ -80,8 +83,32 @@ export interface Comparison {
 export interface GeometryItem {
   el: GeometryElement;
   path: PathData;
+  /** Every place it is drawn (where it stands, and each copy a use draws), element user units → mm. */
+  places: Matrix[];
 }
 type Item = GeometryItem;
+
+/** Most places of one pair measured one by one (after merging places that differ only by a translation). */
+const MAX_PLACES = 64;
+
+/**
+ * Which of the first `k` places to measure: distances do not change under a
+ * translation, so of places whose maps (in both documents) differ only in
+ * their translation one is enough; beyond MAX_PLACES kinds, those drawn
+ * largest (largest singular value) are kept.
+ */
+function distinctPlaces(a: readonly Matrix[], b: readonly Matrix[], k: number): { indices: number[]; capped: boolean } {
+  const seen = new Map<string, number>();
+  const key = (m: Matrix | undefined): string => (m ? `${m[0]},${m[1]},${m[2]},${m[3]}` : '-');
+  for (let i = 0; i < k; i++) {
+    const kk = `${key(a[i])}|${key(b[i])}`;
+    if (!seen.has(kk)) seen.set(kk, i);
+  }
+  let indices = [...seen.values()];
+  const capped = indices.length > MAX_PLACES;
+  if (capped) indices = indices.sort((p, q) => maxScale(a[q]) - maxScale(a[p])).slice(0, MAX_PLACES);
+  return { indices, capped };
+}
 
 /** Chord error of the whole-document sampling, as a fraction of the tolerance (as in measure.ts). */
 const ERROR_FRACTION = 1 / 1000;
@@ -116,7 +143,8 @@ export function geometryItems(doc: SvgDocument, warnings: string[]): GeometryIte
   for (const el of doc.elements) {
     if (!el.rewritable) continue;
     const path = geometryOf(el, warnings);
-    if (path !== null && draws(path)) out.push({ el, path });
+    const places = drawnPlaces(el);
+    if (path !== null && draws(path) && places.length > 0) out.push({ el, path, places });
   }
   return out;
 }
@@ -141,9 +169,11 @@ function sampleAll(list: Item[], spacing: number, chord: number): SampledPath {
   const polylines: Float64Array[] = [];
   let errorBound = 0;
   for (const it of list) {
-    const s = samplePath(it.path, it.el.toMm, spacing, chord);
-    for (const p of s.polylines) polylines.push(p);
-    errorBound = Math.max(errorBound, s.errorBound);
+    for (const place of it.places) {
+      const s = samplePath(it.path, place, spacing, chord);
+      for (const p of s.polylines) polylines.push(p);
+      errorBound = Math.max(errorBound, s.errorBound);
+    }
   }
   return { polylines, errorBound };
 }
@@ -184,7 +214,18 @@ export function compareSvg(a: string, b: string, opts: CompareOptions): Comparis
   const used = new Set<Item>();
   const add = (x: Item, y: Item, by: 'id' | 'order'): void => {
     used.add(x).add(y);
-    const d = measureDeviation(x.path, x.el.toMm, y.path, y.el.toMm, tol);
+    // Every copy is drawn: the pair is measured at each place both draw it (copies pair in order), the worst kept.
+    let d: Deviation | null = null;
+    const k = Math.max(1, Math.min(x.places.length, y.places.length));
+    const { indices, capped } = distinctPlaces(x.places, y.places, k);
+    if (capped) wb.push(`<${y.el.name}> (element ${y.el.index}) is drawn in more than ${MAX_PLACES} differently scaled or turned places: measured at the ${MAX_PLACES} drawn largest`);
+    for (const i of indices) {
+      const di = measureDeviation(x.path, x.places[i] ?? x.el.toMm, y.path, y.places[i] ?? y.el.toMm, tol);
+      if (di !== null && (d === null || di.max > d.max)) d = di;
+    }
+    if (x.places.length !== y.places.length) {
+      wb.push(`<${y.el.name}> (element ${y.el.index}) is drawn ${y.places.length} times, its partner in A ${x.places.length} times`);
+    }
     // Both draw something (geometryItems filters), so a distance exists; null would be a sampling defect.
     if (d === null) throw new Error(`internal: no distance between <${x.el.name}> ${x.el.index} and <${y.el.name}> ${y.el.index}`);
     pairs.push({ a: ref(x.el), b: ref(y.el), by, deviation: d, withinTolerance: d.max <= tol });

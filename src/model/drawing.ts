@@ -8,17 +8,26 @@
  * elements and their contours in mm with the element's style and group.
  */
 import type { Segment } from '../fit/segment.js';
+import type { Matrix } from '../svg/matrixTypes.js';
 import type { ToleranceSplit } from '../budget.js';
 import type { OutcomeReason, OutcomeStatus } from '../report/types.js';
 
-/** How an element is drawn: the properties a cutter or plotter maps to its operations. */
+/** How an element is drawn (its computed style): the properties a cutter or plotter maps to its operations. */
 export interface DrawingStyle {
-  /** Stroke paint as written (`#ff0000`, `red`, `none`), or null when not set. */
-  stroke: string | null;
-  /** Fill paint as written, or null when not set (SVG's initial value is black). */
-  fill: string | null;
-  /** Stroke width in mm on the machine (the element's scale applied), or null when not set. */
-  strokeWidthMm: number | null;
+  /** Stroke paint: `none`, `#rrggbb` (`#rrggbbaa` when not opaque), or `url(#id)` with an optional fallback. */
+  stroke: string;
+  /** Fill paint, as `stroke` (SVG's initial value is black, `#000000`). */
+  fill: string;
+  /** Stroke width in mm on the machine (the element's scale applied; with non-scaling-stroke, the root's). */
+  strokeWidthMm: number;
+  fillRule: 'nonzero' | 'evenodd';
+}
+
+/** One copy of an element drawn through `<use>`. */
+export interface DrawingCopy {
+  /** mm where the element stands → mm where the copy is, SVG matrix order [a b c d e f]. */
+  map: Matrix;
+  style: DrawingStyle;
 }
 
 /** One contour in mm: flat x,y pairs (root viewport, y down), open or closed. */
@@ -39,6 +48,10 @@ export interface DrawingElement {
   /** Id of the nearest enclosing group (SVG: the nearest ancestor `g` with an id), or null. */
   group: string | null;
   style: DrawingStyle;
+  /** False when only copies drawn by `<use>` draw it (it stands in defs or a symbol): a writer then draws just the copies. */
+  inPlace: boolean;
+  /** Every copy a `<use>` draws of it: `map` takes its contours (mm) to the copy's (mm); the copy has its own style (inherited from the use). */
+  copies: DrawingCopy[];
   /** Its contours in mm (a point subpath such as a pierce mark has none; see `points`). */
   contours: DrawingContour[];
   /** Subpaths that draw a single point, in mm, flat x,y pairs. */

@@ -5,13 +5,13 @@
 import type { GeometryElement } from '../svg/document.js';
 import { parsePathData } from '../svg/pathData.js';
 import { shapeToPath } from '../svg/shapes.js';
-import { applyX, applyY } from '../svg/matrix.js';
+import { applyX, applyY, invert, multiply } from '../svg/matrix.js';
 import { OP_A, OP_ARGS, OP_C, OP_M, OP_Q, type ParsedPath, type PathData } from '../svg/pathTypes.js';
 import { flattenPath } from '../geom/flatten.js';
 import { splitTolerance } from '../budget.js';
 import { elementTag } from '../report/table.js';
 import type { OutcomeReason } from '../report/types.js';
-import type { DrawingElement } from './drawing.js';
+import type { DrawingCopy, DrawingElement } from './drawing.js';
 import { resolveStyle } from './style.js';
 
 /** Parse an element's geometry as path data (shapes through their equivalent path); problems go to `warnings`. */
@@ -61,6 +61,14 @@ export function pointSubpaths(p: PathData): number[] {
   return out;
 }
 
+/** The element's copies as maps from its contours in mm to the copy's, with each copy's style. */
+function copiesOf(el: GeometryElement): DrawingCopy[] {
+  if (el.copies.length === 0) return [];
+  const back = invert(new Float64Array(6), el.toMm);
+  if (back === null) return [];
+  return el.copies.map((c) => ({ map: multiply(new Float64Array(6), c.toMm, back), style: resolveStyle(el, c.style) }));
+}
+
 /** Why an element cannot enter the model: a reason code and a message for people. */
 export interface NotModelled {
   reason: OutcomeReason;
@@ -94,7 +102,9 @@ export function drawingElementFromSvg(
   }
   return {
     index: el.index, id: el.id, name: el.name, group: el.group,
-    style: resolveStyle(el.attrs, el.inheritedStyle, el.toMm, el.viewportW, el.viewportH),
+    style: resolveStyle(el),
+    inPlace: !el.drawnByUse,
+    copies: copiesOf(el),
     contours, points, curved, toleranceMm: tolMm, budget,
   };
 }

@@ -1,35 +1,18 @@
 /**
- * Style resolution for the drawing model, behind one function so that a full
- * CSS cascade can replace it without touching its callers.
- *
- * For now: presentation attributes overridden by `style` attribute
- * declarations (SVG 2 §6.7), on the element or inherited from its ancestors
- * (src/svg/presentation.ts). Style sheets are not seen yet.
+ * Style resolution for the drawing model, behind one function: the reader's
+ * computed style (the CSS cascade of src/svg/style/: presentation
+ * attributes, `<style>` sheets, the `style` attribute, `!important`,
+ * inheritance) as the model carries it.
  */
-import type { Matrix } from '../svg/matrixTypes.js';
-import { lengthToUser, viewportDiagonal } from '../svg/units.js';
+import type { GeometryElement } from '../svg/documentTypes.js';
+import type { ElementStyle } from '../svg/style/elementStyle.js';
 import type { DrawingStyle } from './drawing.js';
-import { declaredStyle } from '../svg/presentation.js';
 
 /**
- * The drawing style of an element.
- * @param attrs attribute values by qualified name
- * @param inherited stroke, fill and stroke-width as the ancestors set them
- * @param toMm the element's user units → mm (for the stroke width)
- * @param viewportW nearest viewport width in user units (percent stroke widths)
- * @param viewportH nearest viewport height in user units
+ * The drawing style of an element where it stands (or of one of its copies, given that copy's computed style).
+ * @param el the read element
+ * @param style a computed style to use instead of the element's own (a copy's: `el.copies[k].style`)
  */
-export function resolveStyle(
-  attrs: Readonly<Record<string, string>>, inherited: Readonly<Record<string, string>>, toMm: Matrix, viewportW: number, viewportH: number,
-): DrawingStyle {
-  const own = declaredStyle(attrs);
-  const get = (name: string): string | null => own?.[name] ?? inherited[name] ?? null;
-  const width = get('stroke-width');
-  let strokeWidthMm: number | null = null;
-  if (width !== null) {
-    const user = lengthToUser(width, viewportDiagonal(viewportW, viewportH), NaN);
-    // A length scales by the square root of the area scale where the matrix is not uniform (a mean, for reporting).
-    if (Number.isFinite(user)) strokeWidthMm = user * Math.sqrt(Math.abs(toMm[0] * toMm[3] - toMm[1] * toMm[2]));
-  }
-  return { stroke: get('stroke'), fill: get('fill'), strokeWidthMm };
+export function resolveStyle(el: GeometryElement, style: ElementStyle = el.style): DrawingStyle {
+  return { stroke: style.stroke, fill: style.fill, strokeWidthMm: style.strokeWidthMm, fillRule: style.fillRule };
 }

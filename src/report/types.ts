@@ -61,6 +61,30 @@ export interface ElementReport {
   keptReason: string | null;
   status: OutcomeStatus;
   reason: OutcomeReason | null;
+  /** Its computed paint where it stands (the CSS cascade: attributes, style sheets, style attribute). */
+  style: ElementPaint;
+  /** Copies drawn elsewhere by `<use>` (0 when none); each is kept within the tolerance. */
+  copies: number;
+}
+
+/** How an element is painted: what cutters and plotters map to operations (cut, score, engrave; pen 1, 2). */
+export interface ElementPaint {
+  /** `none`, `#rrggbb` (`#rrggbbaa` when not opaque), or `url(#id)` with an optional fallback. */
+  stroke: string;
+  /** As `stroke`; SVG's initial fill is `#000000`. */
+  fill: string;
+  /** Stroke width in mm on the machine. */
+  strokeWidthMm: number;
+}
+
+/** The drawn elements with one stroke and fill, in order of first appearance. */
+export interface PaintGroup {
+  stroke: string;
+  fill: string;
+  /** Drawn elements with this paint (count; those not drawn where they stand are not counted). */
+  elements: number;
+  /** Of those, rewritten (count). */
+  rewritten: number;
 }
 
 export interface FileReport {
@@ -82,6 +106,8 @@ export interface FileReport {
     maxDeviation: number;
     withinTolerance: boolean;
   };
+  /** The drawn elements grouped by stroke and fill. */
+  paints: PaintGroup[];
   warnings: string[];
   /** Present when the output is a machine file (G-code or DXF) instead of SVG. */
   machine?: MachineSummary;

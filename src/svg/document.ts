@@ -22,14 +22,19 @@
  *   it, so the refit can keep every copy within the tolerance.
  * - A `transform` on the root `<svg>` acts as if on a parent of it (S2 §8.6),
  *   so it is folded into `rootToMm`, not into the elements' `ctm`.
- * - CSS is not applied: `transform` or `display` set by a `style` attribute
- *   or a `<style>` sheet is not seen (a warning says so). `display="none"`
- *   (attribute, or `display:none` in a style attribute) is honoured.
+ * - Styles are computed by the CSS cascade (src/svg/style/): presentation
+ *   attributes, `<style>` sheets anywhere in the document, the `style`
+ *   attribute, `!important`, inheritance. A document with a sheet is read
+ *   twice: the first pass collects the sheets and the element table their
+ *   selectors are matched against, the second computes. `display: none`
+ *   from any origin, and `visibility: hidden` on the element itself, leave
+ *   the geometry as written with the reason; a CSS `transform` is part of the
+ *   element's matrix.
  * - Nested `<svg>` clipping (overflow) is ignored; only its coordinate system
  *   (x, y, width, height, viewBox, preserveAspectRatio, S2 §8.2/§8.8) is used.
- * - Not rewritable (left untouched, with a reason): geometry under defs,
- *   clipPath, mask, symbol, pattern, marker and other never-rendered
- *   containers, under an element in a foreign namespace, inside a
+ * - Not rewritable (left untouched, with a reason): geometry under clipPath,
+ *   mask, pattern, marker and other never-rendered containers, and under defs
+ *   or symbol unless a drawn `<use>` draws it (./copies.ts), under an element in a foreign namespace, inside a
  *   non-container (e.g. a path inside <text>), with `display="none"` on it or
  *   an ancestor, with an invalid `transform` on it or an ancestor, or with a
  *   singular CTM (CT1: not displayed).
@@ -42,71 +47,20 @@ import { lengthToUser, mmPerPx } from './units.js';
 import { parsePreserveAspectRatio, parseViewBox, rootToMm, viewBoxTransform } from './viewport.js';
 import { errorAt, SvgInputError } from './errors.js';
 import { createEntityGuard, XML_LIMITS } from './xmlSafety.js';
-import { CopyRecorder, MAX_CHAIN } from './copies.js';
-import { declaredStyle } from './presentation.js';
+import { CopyRecorder } from './copies.js';
+import { NO_COPIES, placeCopies } from './reuse.js';
+import { computeStyle, ROOT_PARENT, type Computed } from './style/cascade.js';
+import { parseCssTransform, parseTransformOrigin } from './style/cssTransform.js';
+import { elementStyle } from './style/elementStyle.js';
+import { SVG_NS, type GeometryElement, type GeometryName, type ReadOptions, type SvgDocument } from './documentTypes.js';
+import { matchRules } from './style/match.js';
+import { parseSheets, parseStyleAttribute, type Decl } from './style/sheet.js';
+import type { ElementTable } from './style/selectors.js';
 
-/** The SVG namespace URI. */
-export const SVG_NS = 'http://www.w3.org/2000/svg';
+export type { ElementStyle } from './style/elementStyle.js';
 
-/** Element names whose geometry arcspline reads and may rewrite. */
-export type GeometryName = 'path' | 'rect' | 'circle' | 'ellipse' | 'line' | 'polyline' | 'polygon';
-
-/** One geometry element as found in the source. */
-export interface GeometryElement {
-  /** Document order among all elements, the root svg being 0. */
-  index: number;
-  /** Local name (a prefix such as `svg:` is not part of it). */
-  name: GeometryName;
-  id: string | null;
-  /** Ancestors by qualified name and #id, root first, e.g. "svg > g#layer1 > g"; deeper than 24 levels the middle is shown as "…". */
-  ancestors: string;
-  /** Attribute values by qualified name, as the XML parser decoded them (entities resolved). */
-  attrs: Record<string, string>;
-  /** Element user units → root user units, including the element's own transform. */
-  ctm: Matrix;
-  /** Element user units → millimetres: `rootToMm · ctm`. */
-  toMm: Matrix;
-  /** Size of the nearest viewport in the element's user units (before its own transform), for percentages. */
-  viewportW: number;
-  viewportH: number;
-  /** String indices into `text` of the start tag's `<` and just after its `>`. */
-  startTag: [number, number];
-  /** The same for the end tag, or null for a self-closing element. */
-  endTag: [number, number] | null;
-  /** False when the element must be left untouched; `reason` says why. */
-  rewritable: boolean;
-  reason: string | null;
-  /** Most a copy drawn by `<use>` enlarges it, in mm (1 when it has no larger copy; ./copies.ts). */
-  copyScale: number;
-  /** Id of the nearest ancestor `<g>` that has one (a layer or group), or null. */
-  group: string | null;
-  /** Namespace prefixes in scope at the element ('' = default namespace) → URI; shared, do not modify. */
-  namespaces: Readonly<Record<string, string>>;
-  /** stroke, fill and stroke-width as its ancestors set them (./presentation.ts); shared, do not modify. */
-  inheritedStyle: Readonly<Record<string, string>>;
-}
-
-/** A read document: the original text and what we found in it. */
-export interface SvgDocument {
-  /** The input, unchanged (a BOM, if any, is kept; offsets index this string). */
-  text: string;
-  elements: GeometryElement[];
-  /** Root user units → millimetres, the root's own transform included. */
-  rootToMm: Matrix;
-  /** True when the root's width/height state a physical size. */
-  physicalSize: boolean;
-  /** The page (the root viewport) in mm, width and height (machine output puts its origin at a page corner). */
-  pageMm: [number, number];
-  warnings: string[];
-}
-
-/** Options for {@link readSvg}. */
-export interface ReadOptions {
-  /** Millimetres per user unit when the file states no physical size. */
-  assumedMmPerUnit: number;
-  /** Largest input accepted, characters (default XML_LIMITS.maxInputChars). */
-  maxInputChars?: number;
-}
+export { SVG_NS } from './documentTypes.js';
+export type { GeometryName, GeometryElement, ElementCopy, SvgDocument, ReadOptions } from './documentTypes.js';
 
 const GEOMETRY = new Set<string>(['path', 'rect', 'circle', 'ellipse', 'line', 'polyline', 'polygon']);
 /** Children of these may be rendered in place. */
@@ -116,17 +70,41 @@ const NEVER_RENDERED = new Set<string>([
   'defs', 'clipPath', 'mask', 'symbol', 'pattern', 'marker', 'metadata', 'title', 'desc',
   'style', 'script', 'foreignObject', 'linearGradient', 'radialGradient', 'filter',
 ]);
-const DISPLAY_NONE_STYLE = /(?:^|;)\s*display\s*:\s*none\s*(?:!important\s*)?(?:;|$)/i;
+/** Never-rendered containers whose content a `<use>` may draw (S2 §5.3, §5.5): geometry there is refitted when drawn. */
+const REUSABLE = new Set<string>(['defs', 'symbol']);
+/** `<style>` types that are CSS (S2 §6.3: absent or empty means text/css). */
+const CSS_TYPE = /^\s*(?:text\/css)?\s*(?:;.*)?$/i;
 const MAX_DEPTH = 1_000_000;
 const XML_NS = 'http://www.w3.org/XML/1998/namespace';
 const ANCESTOR_LEVELS = 24;
 
 /**
  * Parse `text` (a whole SVG document) and list its geometry elements.
- * @throws SvgInputError for malformed XML, a root other than `<svg>`, or
- *   XML the safety rules (REFERENCES.md §7, src/svg/xmlSafety.ts) refuse.
+ * @throws SvgInputError for malformed XML, a root other than `<svg>`, XML
+ *   the safety rules (REFERENCES.md §7, src/svg/xmlSafety.ts) refuse, or
+ *   style sheets over the caps (src/svg/style/sheet.ts STYLE_LIMITS).
  */
 export function readSvg(text: string, opts: ReadOptions): SvgDocument {
+  const first = readPass(text, opts, null);
+  if (first.sheets.length === 0) return first.doc;
+  // Sheets apply to the whole document wherever they stand: match them against the table of the first pass, then read again.
+  const notes = new Set<string>();
+  const rules = parseSheets(first.sheets, notes);
+  const matched = matchRules(first.table, rules, notes);
+  const second = readPass(text, opts, matched);
+  second.doc.warnings.push(...notes);
+  return second.doc;
+}
+
+interface Pass {
+  doc: SvgDocument;
+  /** Text of the CSS `<style>` sheets, in document order. */
+  sheets: string[];
+  table: ElementTable;
+}
+
+/** One reading of the document; `matched` gives each element's sheet declarations (null: no sheets known). */
+function readPass(text: string, opts: ReadOptions, matched: (Decl[] | undefined)[] | null): Pass {
   const parser = new SaxesParser({ xmlns: false });
   // saxes skips a leading BOM itself and counts it in `position`, so every
   // offset below is an index into the original `text`.
@@ -149,9 +127,6 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
   const nsStack: Record<string, string>[] = [];
   /** Id of the nearest `<g>` with an id at or above each depth. */
   const groupStack: (string | null)[] = [];
-  /** Inherited drawing properties at each depth (shared with the parent unless the element declares one). */
-  const styleStack: Readonly<Record<string, string>>[] = [];
-  const NO_STYLE: Readonly<Record<string, string>> = Object.freeze({});
   const rootNs = Object.assign(Object.create(null) as Record<string, string>, { xml: XML_NS, '': '' });
   let depth = 0;
   let count = 0;
@@ -160,7 +135,23 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
   let docRootToMm: Matrix = identityMatrix();
   let physical = false;
   let pageMm: [number, number] = [0, 0];
-  let sawStyleTransform = false;
+  const notes = new Set<string>();
+  const styleStack: Computed[] = [];
+  /** Deepest depth at or above each open element whose reason a `<use>` cannot lift (−1: none); see ./copies.ts. */
+  const blockAt: number[] = [];
+  const sheets: string[] = [];
+  /** Depth of the open CSS `<style>` element, or −1. */
+  let inSheet = -1;
+  const table = { parent: [] as number[], name: [] as string[], attrs: [] as Record<string, string>[] };
+  const indexAt: number[] = [];
+  const useStyle = new Map<number, Computed>();
+  // Percentages in a CSS transform refer to the nearest viewport (read by the checker below).
+  let boxW = 0, boxH = 0;
+  const cssTransformOk = (v: string): boolean => {
+    const r = parseCssTransform(v, boxW, boxH);
+    if (r.error !== null) notes.add(`CSS transform ignored: ${r.error}`);
+    return r.error === null;
+  };
 
   parser.on('error', (e: Error) => {
     const msg = e.message.replace(/^(?:[^:]*:)?\d+:\d+: /, '').replace(/\.$/, '');
@@ -170,8 +161,10 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
     guard.doctype(contents, Math.max(0, text.lastIndexOf('<!DOCTYPE', parser.position)));
   });
   parser.on('processinginstruction', (pi) => {
-    if (pi.target === 'xml-stylesheet') warnings.push('xml-stylesheet ignored (never fetched; CSS is not applied)');
+    if (pi.target === 'xml-stylesheet') notes.add('xml-stylesheet ignored (an external style sheet is never fetched)');
   });
+  parser.on('text', (t: string) => { if (inSheet >= 0) sheets[sheets.length - 1] += t; });
+  parser.on('cdata', (t: string) => { if (inSheet >= 0) sheets[sheets.length - 1] += t; });
 
   parser.on('opentag', (tag: SaxesTagPlain) => {
     const end = parser.position;
@@ -210,24 +203,42 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
     let w = depth > 0 ? vpW[depth - 1] : 0;
     let h = depth > 0 ? vpH[depth - 1] : 0;
 
-    const style = at.style;
-    if (style !== undefined && !sawStyleTransform && /(?:^|;)\s*transform\s*:/i.test(style)) {
-      sawStyleTransform = true;
-      warnings.push(`a CSS transform in a style attribute (first on <${label}>) is ignored`);
-    }
-    if (isSvg && reason === null) {
-      if (at.display?.trim() === 'none' || (style !== undefined && DISPLAY_NONE_STYLE.test(style))) {
-        reason = `display="none" on <${label}>`;
-      }
+    table.parent[index] = depth > 0 ? indexAt[depth - 1] : -1;
+    table.name[index] = local;
+    table.attrs[index] = at;
+    indexAt[depth] = index;
+    const parentStyle = depth > 0 ? styleStack[depth - 1] : ROOT_PARENT;
+    boxW = w;
+    boxH = h;
+    const computed = isSvg
+      ? computeStyle(parentStyle, at, matched?.[index], at.style !== undefined ? parseStyleAttribute(at.style, notes) : null, cssTransformOk)
+      : computeStyle(parentStyle, NO_ATTRS, undefined, null, cssTransformOk);
+    let block = depth > 0 ? blockAt[depth - 1] : -1;
+    // Set when something on this element itself keeps it from being drawn, even under an inherited reason (a use of an ancestor would not lift it).
+    let ownBlock = false;
+    if (isSvg && computed.values.display === 'none') {
+      ownBlock = true;
+      reason ??= `display: none on <${label}>`;
     }
     let own: Matrix | null = null;
-    const tf = at.transform;
-    if (tf !== undefined && isSvg) {
-      const p = parseTransform(tf);
-      if (p.error !== null) {
-        reason ??= `invalid transform on <${label}>: ${p.error}`;
+    const tf = computed.values.transform;
+    if (tf !== 'none' && isSvg) {
+      if (computed.transformIsCss) {
+        own = parseCssTransform(tf, w, h).matrix; // checked valid by the cascade
       } else {
-        own = p.matrix;
+        const p = parseTransform(tf);
+        if (p.error !== null) {
+          ownBlock = true;
+          reason ??= `invalid transform on <${label}>: ${p.error}`;
+        }
+        else own = p.matrix;
+      }
+      const origin = computed.values['transform-origin'];
+      if (own !== null && origin !== '0 0') {
+        // CT1 §8.1: the transform acts about the origin: translate(o) · T · translate(−o).
+        const o = parseTransformOrigin(origin, w, h);
+        if (o === null) notes.add(`transform-origin "${origin.slice(0, 60)}" not understood (on <${label}>); 0 0 used`);
+        else own = multiply(new Float64Array(6), multiply(new Float64Array(6), matrix(1, 0, 0, 1, o[0], o[1]), own), matrix(1, 0, 0, 1, -o[0], -o[1]));
       }
     }
 
@@ -255,7 +266,10 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
         const ew = lengthToUser(at.width, w, w);
         const eh = lengthToUser(at.height, h, h);
         const vb = at.viewBox !== undefined ? parseViewBox(at.viewBox) : null;
-        if (!(ew > 0 && eh > 0)) reason ??= `nested <${label}> has no area (not rendered)`;
+        if (!(ew > 0 && eh > 0)) {
+          ownBlock = true;
+          reason ??= `nested <${label}> has no area (not rendered)`;
+        }
         const vm = vb !== null
           ? viewBoxTransform(vb, parsePreserveAspectRatio(at.preserveAspectRatio), x, y, ew, eh)
           : matrix(1, 0, 0, 1, x, y);
@@ -266,12 +280,25 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
     }
     if (ctm !== parentCtm && reason === null) {
       const det = determinant(depth === 0 ? docRootToMm : ctm);
-      if (!(det !== 0 && Number.isFinite(det))) reason = `singular transform at <${label}> (not displayed)`;
+      if (!(det !== 0 && Number.isFinite(det))) {
+        ownBlock = true;
+        reason = `singular transform at <${label}> (not displayed)`;
+      }
     }
 
     let g = -1;
     if (isSvg && GEOMETRY.has(local)) {
+      // Not painted where it stands (S2 §13.3; inherited, so a child may show again): kept as written.
+      if (computed.values.visibility !== 'visible') {
+        ownBlock = true;
+        reason ??= `visibility: ${computed.values.visibility} on <${label}> (not painted)`;
+      }
+    }
+    // A reason arising here that a <use> drawing this element or an ancestor would not lift (only defs and symbol are lifted).
+    if (ownBlock) block = depth;
+    if (isSvg && GEOMETRY.has(local)) {
       const attrs: Record<string, string> = { ...at };
+      const toMm = multiply(new Float64Array(6), docRootToMm, ctm);
       g = elements.length;
       elements.push({
         index,
@@ -280,7 +307,7 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
         ancestors: ancestorsOf(labels, depth),
         attrs,
         ctm: ctm.slice(),
-        toMm: multiply(new Float64Array(6), docRootToMm, ctm),
+        toMm,
         viewportW: w,
         viewportH: h,
         startTag: [start, end],
@@ -290,18 +317,33 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
         copyScale: 1,
         group: depth > 0 ? groupStack[depth - 1] : null,
         namespaces: ns,
-        inheritedStyle: depth > 0 ? styleStack[depth - 1] : NO_STYLE,
+        drawnByUse: false,
+        style: elementStyle(computed, toMm, docRootToMm, w, h),
+        copies: NO_COPIES,
       });
     }
-    copies.open(index, depth, isSvg ? local : null, id, at, ctm, parentCtm, ns, w, h);
+    const ov = computed.values.overflow;
+    copies.open(index, depth, isSvg ? local : null, id, at, ctm, parentCtm, ns, w, h, own, ov === 'hidden' || ov === 'scroll' || ov === 'clip');
+    copies.state(index, block, reason === null);
     let forChildren = reason;
     if (forChildren === null) {
       if (!isSvg) forChildren = `inside <${label}> (not SVG)`;
       else if (NEVER_RENDERED.has(local)) forChildren = `inside <${label}> (not rendered in place)`;
       else if (!CONTAINERS.has(local)) forChildren = `inside <${label}> (not a container)`;
+      if (forChildren !== null && !(isSvg && REUSABLE.has(local))) block = depth;
     }
-    if (isSvg && local === 'style') warnings.push('a <style> sheet is ignored (CSS is not applied)');
+    if (isSvg && local === 'style') {
+      if (CSS_TYPE.test(at.type ?? '')) {
+        inSheet = depth;
+        sheets.push('');
+      } else {
+        notes.add(`a <style> of type "${at.type}" is not CSS and is not applied`);
+      }
+    }
     ctmStack[depth] = ctm;
+    styleStack[depth] = computed;
+    if (isSvg && local === 'use') useStyle.set(index, computed);
+    blockAt[depth] = block;
     vpW[depth] = w;
     vpH[depth] = h;
     childReason[depth] = forChildren;
@@ -309,14 +351,12 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
     geomAt[depth] = g;
     nsStack[depth] = ns;
     groupStack[depth] = isSvg && local === 'g' && id !== null ? id : depth > 0 ? groupStack[depth - 1] : null;
-    const parentStyle = depth > 0 ? styleStack[depth - 1] : NO_STYLE;
-    const ownStyle = isSvg ? declaredStyle(at) : null;
-    styleStack[depth] = ownStyle ? { ...parentStyle, ...ownStyle } : parentStyle;
     depth++;
   });
 
   parser.on('closetag', (tag: SaxesTagPlain) => {
     depth--;
+    if (depth === inSheet) inSheet = -1;
     copies.close(depth, count - 1);
     const g = geomAt[depth];
     if (g >= 0 && !tag.isSelfClosing) {
@@ -331,16 +371,18 @@ export function readSvg(text: string, opts: ReadOptions): SvgDocument {
     if (e instanceof SvgInputError) throw e;
     throw new SvgInputError(`XML error: ${(e as Error).message}`);
   }
-  const scales = copies.scales(elements.map((e) => e.index), docRootToMm);
-  elements.forEach((e, i) => {
-    e.copyScale = scales[i];
-    if (!Number.isFinite(scales[i]) && e.rewritable) {
-      e.rewritable = false;
-      e.reason = `drawn again by <use> at a scale that cannot be bounded (a cycle of uses, a chain of more than ${MAX_CHAIN}, or a resized nested <svg>)`;
-    }
-  });
-  return { text, elements, rootToMm: docRootToMm, physicalSize: physical, pageMm, warnings: [...guard.warnings, ...warnings] };
+  // The cascade again for a copy: from the target down, inheriting from the use (S2 §5.6).
+  const restyle = (pos: number, parent: Computed): Computed => {
+    const at = table.attrs[pos];
+    return computeStyle(parent, at, matched?.[pos], at.style !== undefined ? parseStyleAttribute(at.style, notes) : null, cssTransformOk);
+  };
+  const many = placeCopies(elements, copies, { parent: table.parent, useStyle, restyle }, docRootToMm);
+  if (many !== null) notes.add(many);
+  const doc = { text, elements, rootToMm: docRootToMm, physicalSize: physical, pageMm, warnings: [...guard.warnings, ...warnings, ...notes] };
+  return { doc, sheets, table };
 }
+
+const NO_ATTRS: Record<string, string> = Object.freeze({}) as Record<string, string>;
 
 /** "svg > g#a > g" for the first `depth` labels, eliding the middle of a deep chain. */
 function ancestorsOf(labels: string[], depth: number): string {

@@ -6,6 +6,7 @@ function element(over: Partial<ElementReport>): ElementReport {
   return {
     index: 3, name: 'path', id: 'outline', ancestors: 'svg > g#cut', commandsBefore: { C: 1800, M: 1 }, straightMovesNeeded: 500,
     segmentsAfter: { arcs: 40, lines: 5 }, kept: false, keptReason: null, status: 'refitted', reason: null,
+    style: { stroke: '#ff0000', fill: 'none', strokeWidthMm: 0.1 }, copies: 0,
     deviation: { max: 0.0864, originalToResult: 0.0864, resultToOriginal: 0.05, mean: 0.02, worstMm: [1, 2], worstUser: [1, 2] },
     ...over,
   };
@@ -14,7 +15,7 @@ function element(over: Partial<ElementReport>): ElementReport {
 function report(elements: ElementReport[], warnings: string[] = []): FileReport {
   const rewritten = elements.filter((e) => !e.kept);
   return {
-    tool: 'arcspline', version: '0', file: 'bracket.svg', toleranceMm: 0.1, bytesIn: 32548, bytesOut: 2037, timeMs: 1, elements, warnings,
+    tool: 'arcspline', version: '0', file: 'bracket.svg', toleranceMm: 0.1, bytesIn: 32548, bytesOut: 2037, timeMs: 1, elements, warnings, paints: [],
     totals: {
       elements: elements.length, rewritten: rewritten.length, kept: elements.length - rewritten.length,
       commandsBefore: elements.reduce((s, e) => s + Object.values(e.commandsBefore).reduce((a, b) => a + b, 0), 0),

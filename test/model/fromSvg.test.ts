@@ -23,7 +23,8 @@ describe('drawingElementFromSvg', () => {
   it('gives contours in mm with the element, its nearest named group and its style', () => {
     const m = model('p');
     expect([m.index, m.id, m.name, m.group]).toEqual([3, 'p', 'path', 'layer-cut']);
-    expect(m.style).toEqual({ stroke: 'red', fill: 'none', strokeWidthMm: null });
+    // Computed: red is #ff0000 (CSS Color 4 §6.1); stroke-width 1 user unit at 0.5 mm per unit (100mm over a viewBox 200 wide).
+    expect(m.style).toEqual({ stroke: '#ff0000', fill: 'none', strokeWidthMm: 0.5, fillRule: 'nonzero' });
     expect(m.contours).toHaveLength(1);
     expect(m.contours[0].closed).toBe(true);
     // The square of 20 units is 10 mm on a side.

@@ -39,11 +39,13 @@ describe('copyScale: how much larger a <use> copy draws an element (S2 §5.6: th
     expect(scaleOf(`<svg ${NS}><g id="g"><path id="p" d="${ring(20, 20, 5)}"/><use href="#g" transform="scale(9)"/></g></svg>`, 'p')).toBe(1);
   });
 
-  it('a use that resizes a referenced nested <svg> (width, height) is not bounded: its content is left as written', () => {
+  it('a use that resizes a referenced nested <svg> (S2 §5.6: its width and height replace the svg\'s) scales its content by the viewBox map', () => {
     const svg = `<svg ${NS}><svg id="s" width="50" height="50" viewBox="0 0 50 50"><path id="p" d="${ring(20, 20, 5)}"/></svg>` +
       '<use href="#s" width="150" height="150"/></svg>';
     const el = readSvg(svg, { assumedMmPerUnit: 1 }).elements.find((e) => e.id === 'p')!;
-    expect(el.rewritable).toBe(false);
+    expect(el.rewritable).toBe(true);
+    // viewBox 50 wide shown 150 wide: 3 (S2 §8.2, uniform xMidYMid meet).
+    expect(el.copyScale).toBeCloseTo(3, 12);
     // Without width and height the use keeps the viewport: a plain copy.
     expect(scaleOf(svg.replace(' width="150" height="150"', ''), 'p')).toBeCloseTo(1, 12);
   });

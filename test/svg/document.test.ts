@@ -141,32 +141,33 @@ describe('readSvg: coordinate systems', () => {
 
 describe('readSvg: what is left untouched', () => {
   const text = `<svg ${NS} xmlns:x="urn:x">` +
-    '<defs><path id="d1" d=""/></defs><clipPath><rect/></clipPath><symbol><circle/></symbol>' +
+    '<defs><path id="d0" d=""/><path id="d1" d=""/></defs><clipPath><rect/></clipPath><symbol><circle/></symbol>' +
     '<g display="none"><line/></g><g style="fill:red; display : none"><polyline/></g>' +
     '<g transform="scale(0)"><polygon/></g><g transform="rotate(oops)"><ellipse/></g>' +
     '<text><path d=""/></text><x:group><path d=""/></x:group>' +
     '<use href="#d1"/><g id="ok"><path id="p" d=""/></g></svg>';
   const els = readSvg(text, OPTS).elements;
-  const reasons = els.map((e) => e.reason);
+  const reasons = els.filter((e) => e.id !== 'd1').map((e) => e.reason);
 
   it('marks each case with a reason', () => {
     expect(reasons.slice(0, 9)).toEqual([
       'inside <defs> (not rendered in place)',
       'inside <clipPath> (not rendered in place)',
       'inside <symbol> (not rendered in place)',
-      'display="none" on <g>',
-      'display="none" on <g>',
+      'display: none on <g>',
+      'display: none on <g>',
       'singular transform at <g> (not displayed)',
       expect.stringMatching(/^invalid transform on <g>: /),
       'inside <text> (not a container)',
       'inside <x:group> (not SVG)',
     ]);
-    expect(els.slice(0, 9).every((e) => !e.rewritable)).toBe(true);
+    expect(els.filter((e) => e.id !== 'd1').slice(0, 9).every((e) => !e.rewritable)).toBe(true);
   });
 
-  it('leaves rendered geometry rewritable; use is not expanded', () => {
+  it('leaves rendered geometry rewritable; what a drawn use draws from defs is rewritable too', () => {
     const last = els[els.length - 1];
-    expect(els).toHaveLength(10);
+    expect(els).toHaveLength(11);
+    expect(els[1]).toMatchObject({ id: 'd1', rewritable: true, reason: null, drawnByUse: true });
     expect(last).toMatchObject({ id: 'p', rewritable: true, reason: null, ancestors: 'svg > g#ok' });
   });
 });
