@@ -32,6 +32,17 @@ function hwbToRgb(h: number, w: number, b: number): [number, number, number] {
 const hex2 = (v: number): string => Math.max(0, Math.min(255, Math.round(v))).toString(16).padStart(2, '0');
 
 /**
+ * color-string scales a percentage channel by 2.55 (50 % → 127.49999… → 127); CSS Color 4 §5.1 maps
+ * 0–100 % onto 0–255 (50 % → 127.5, serialised 128 as browsers do). Recompute percentage channels
+ * from the numbers color-string accepted, so `rgb(100%, 50%, 0%)` and `#ff8000` are one colour.
+ */
+function percentChannels(text: string, rgb: number[]): number[] {
+  if (text.indexOf('%') < 0) return rgb;
+  const nums = text.match(/[-+]?(?:\d+\.?\d*|\.\d+)(?:e[-+]?\d+)?%?/gi) ?? [];
+  return rgb.map((v, i) => (nums[i]?.endsWith('%') ? (parseFloat(nums[i]) * 255) / 100 : v));
+}
+
+/**
  * A CSS colour as lower-case `#rrggbb`, `#rrggbbaa` when its alpha is below
  * 1, or null when it is not a colour (`currentColor` is the caller's).
  */
@@ -39,7 +50,7 @@ export function normaliseColour(text: string): string | null {
   const c = colorString.get(text.trim());
   if (c === null) return null;
   const [x, y, z, alpha] = c.value;
-  const rgb = c.model === 'rgb' ? [x, y, z] : c.model === 'hsl' ? hslToRgb(x, y, z) : hwbToRgb(x, y, z);
+  const rgb = c.model === 'rgb' ? percentChannels(text, [x, y, z]) : c.model === 'hsl' ? hslToRgb(x, y, z) : hwbToRgb(x, y, z);
   const a = alpha ?? 1;
   return `#${hex2(rgb[0])}${hex2(rgb[1])}${hex2(rgb[2])}${a < 1 ? hex2(a * 255) : ''}`;
 }
