@@ -13,8 +13,3 @@ declare module 'gcode-toolpath' {
   }
 }
 
-// CSS colour keywords → [r, g, b] (ships no types).
-declare module 'color-name' {
-  const colors: Readonly<Record<string, readonly [number, number, number]>>;
-  export default colors;
-}
