@@ -28,6 +28,9 @@ export interface Joined<S> {
   gap: number;
 }
 
+/** Ends closer than this are the same point (mm: a nanometre, far below any machine's step). */
+const SAME = 1e-6;
+
 /** Candidates looked at per end: enough for any real junction, bounded for a star of many lines through one point. */
 const PER_END = 8;
 
@@ -136,7 +139,7 @@ function appendPiece(out: number[], xy: Float64Array, reversed: boolean): void {
     const v = reversed ? nv - 1 - k : k;
     const x = xy[2 * v], y = xy[2 * v + 1];
     const m = out.length;
-    if (m >= 2 && out[m - 2] === x && out[m - 1] === y) continue;
+    if (m >= 2 && Math.abs(out[m - 2] - x) <= SAME && Math.abs(out[m - 1] - y) <= SAME) continue;
     out.push(x, y);
   }
 }
@@ -151,5 +154,5 @@ function closeIfMeets<S>(c: Joined<S>, distance: number): void {
   if (len <= 2 * distance) return;
   c.closed = true;
   c.gap = Math.max(c.gap, gap);
-  if (gap === 0) c.xy = xy.slice(0, m - 2);
+  if (gap <= SAME) c.xy = xy.slice(0, m - 2);
 }

@@ -5,19 +5,20 @@
  * Method [derived]: every segment of every contour goes into a static R-tree
  * (flatbush). Contours are taken in input order; for each segment PQ of the
  * current contour, the kept parts of earlier contours' segments near it that run
- * nearly parallel (within `MAX_ANGLE`) each cover an interval of PQ: the part of PQ
- * within `distance` of them (src/plan/capsule.ts). Covered intervals are merged
- * along the contour's arc length; an interval is removed when it covers the whole
- * contour, or is at least `minEnd` long at an open contour's end, or at least
- * `minInner` long elsewhere (cutting a contour in two costs a pen lift, so only a
- * long stretch is worth it; a shallow crossing covers a short one). Exact duplicates, reversed duplicates and collinear
- * partial overlaps of lines all reduce to this; so do co-circular arcs, as their
- * flattened chords run parallel within one flattening step, and a grid of squares
- * drawn as separate closed paths keeps each inner edge once (the first square
- * that draws it keeps it). Removed parts lie within `distance` of kept lines.
+ * within 15° of parallel each cover an interval of PQ: the part of PQ beside them
+ * within `distance` (src/plan/beside.ts). Covered intervals are merged along the
+ * contour's arc length; an interval is removed when it covers the whole contour,
+ * or is at least `minEnd` long at an open contour's end, or at least `minInner`
+ * long elsewhere (cutting a contour in two costs a pen lift, so only a long
+ * stretch is worth it; a shallow crossing covers a short one). Exact duplicates,
+ * reversed duplicates and collinear partial overlaps of lines all reduce to this;
+ * so do co-circular arcs, as their flattened chords run parallel within one
+ * flattening step; and a grid of squares drawn as separate closed paths keeps each
+ * inner edge once (the first square that draws it keeps it). Removed parts lie
+ * within `distance` of kept lines.
  */
 import Flatbush from 'flatbush';
-import { segmentNearSegment } from './capsule.js';
+import { segmentBesideSegment } from './beside.js';
 
 /** Segments turning more than this against the kept line are crossings, not double lines (15°). */
 const MAX_SIN = Math.sin((15 * Math.PI) / 180);
@@ -101,7 +102,7 @@ export function removeOverlaps(contours: readonly Polyline[], distance: number, 
         const ranges = keptRanges(kept[o], startLen[hit], olen);
         for (let i = 0; i < ranges.length; i += 2) {
           const u0 = ranges[i], u1 = ranges[i + 1];
-          if (segmentNearSegment(t, px, py, qx, qy, ax + u0 * (bx - ax), ay + u0 * (by - ay), ax + u1 * (bx - ax), ay + u1 * (by - ay), distance)) {
+          if (segmentBesideSegment(t, px, py, qx, qy, ax + u0 * (bx - ax), ay + u0 * (by - ay), ax + u1 * (bx - ax), ay + u1 * (by - ay), distance)) {
             local.push(startLen[h] + t[0] * len, startLen[h] + t[1] * len);
           }
         }
