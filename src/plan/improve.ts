@@ -13,7 +13,7 @@
  * a or at c next to the other, forwards or reversed. The best improving move is
  * made and the contours around it go back on the queue.
  */
-import type { Tour } from './tour.js';
+import { dist, type Tour } from './tour.js';
 
 /** Smallest gain taken (mm): below it, rounding could make a move loop forever. */
 const EPS = 1e-9;
@@ -81,39 +81,60 @@ export function improve(t: Tour, cand: Int32Array, k: number, limits: ImproveLim
     queued[a] = 0;
     bestGain = 0;
     kind = -1;
+    const i = t.pos[a];
+    const eax = t.exitX(i), eay = t.exitY(i), nax = t.entryX(i), nay = t.entryY(i);
+    // The edges leaving and entering a: a move only pays when its new edge at a is shorter than the one it
+    // replaces there (the positive-gain rule of sequential exchanges, from memory), which prunes most tries.
+    const dOut = t.hop(i, i + 1), dIn = t.hop(i - 1, i);
     for (let r = 0; r < k; r++) {
       const c = cand[a * k + r];
       if (c < 0) break;
-      const i = t.pos[a], j = t.pos[c];
+      const j = t.pos[c];
+      const ecx = t.exitX(j), ecy = t.exitY(j), ncx = t.entryX(j), ncy = t.entryY(j);
+      const ee = dist(eax, eay, ecx, ecy), en = dist(eax, eay, ncx, ncy);
+      const ne = dist(nax, nay, ecx, ecy), nn = dist(nax, nay, ncx, ncy);
       // 2-opt: exit of a next to exit of c, entry of a next to entry of c.
-      tryTwo(i, j);
-      tryTwo(i - 1, j - 1);
+      if (ee < dOut) tryTwo(i, j);
+      if (nn < dIn) tryTwo(i - 1, j - 1);
       for (let len = 1; len <= 3; len++) {
-        // Runs starting or ending at c put next to a, and the same with a and c swapped.
-        tryOr(j, j + len - 1, i, false); // c.. after a (exit a → entry c)
-        tryOr(j - len + 1, j, i - 1, false); // ..c before a (exit c → entry a)
-        tryOr(j - len + 1, j, i, true); // ..c reversed after a (exit a → exit c)
-        tryOr(j, j + len - 1, i - 1, true); // c.. reversed before a (entry c → entry a)
-        tryOr(i, i + len - 1, j, false);
-        tryOr(i - len + 1, i, j - 1, false);
-        tryOr(i - len + 1, i, j, true);
-        tryOr(i, i + len - 1, j - 1, true);
+        // Runs starting or ending at c put next to a, and runs at a put next to c.
+        if (en < dOut) {
+          tryOr(j, j + len - 1, i, false); // c.. after a
+          tryOr(i - len + 1, i, j - 1, false); // ..a before c
+        }
+        if (ne < dIn) {
+          tryOr(j - len + 1, j, i - 1, false); // ..c before a
+          tryOr(i, i + len - 1, j, false); // a.. after c
+        }
+        if (ee < dOut) {
+          tryOr(j - len + 1, j, i, true); // ..c reversed after a
+          tryOr(i - len + 1, i, j, true); // ..a reversed after c
+        }
+        if (nn < dIn) {
+          tryOr(j, j + len - 1, i - 1, true); // c.. reversed before a
+          tryOr(i, i + len - 1, j - 1, true); // a.. reversed before c
+        }
       }
     }
     if (kind < 0) continue;
-    const c0 = t.seq[Math.max(0, m0)], c1 = t.seq[Math.min(n - 1, m1 + (kind === 0 ? 1 : 0))];
-    if (kind === 0) t.twoOpt(m0, m1);
-    else t.orMove(m0, m1, m2, mRev);
+    // The contours at the ends of every edge the move replaces go back on the queue.
+    let touched: number[];
+    if (kind === 0) {
+      touched = [m0, m0 + 1, m1, m1 + 1];
+      t.twoOpt(m0, m1);
+    } else {
+      touched = [m0 - 1, m0, m1, m1 + 1, m2, m2 + 1];
+      touched = touched.map((p) => (p >= 0 && p < n ? t.seq[p] : -1));
+      t.orMove(m0, m1, m2, mRev);
+      touched = touched.map((it) => (it >= 0 ? t.pos[it] : -1));
+    }
     moves++;
-    for (const it of [a, c0, c1]) {
-      const p = t.pos[it];
-      push(it);
+    push(a);
+    for (const p of touched) {
+      if (p < 0 || p >= n) continue;
+      push(t.seq[p]);
       if (p > 0) push(t.seq[p - 1]);
       if (p + 1 < n) push(t.seq[p + 1]);
-    }
-    if (kind === 1) {
-      const g = m2 >= 0 ? t.seq[Math.min(n - 1, m2)] : -1;
-      if (g >= 0) push(g);
     }
   }
   return moves;

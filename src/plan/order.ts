@@ -7,16 +7,18 @@
  * the other end; any vertex of a closed contour, leaving where it entered), one
  * entry per cluster is visited (the generalized TSP for contours with a choice of
  * entry point, from memory). Method:
- * 1. construction: nearest neighbour over every entry point in a k-d tree
- *    (src/plan/pointTree.ts), removing a contour's entries once it is drawn, so a
- *    step costs O(log n); with holes first, a container's entries join the tree only
- *    once everything inside it is drawn (precedence constraints for nested contours);
+ * 1. construction: greedy matching of contour ends (src/plan/greedy.ts); with holes
+ *    first, nearest neighbour over every entry point in a k-d tree
+ *    (src/plan/pointTree.ts), removing a contour's entries once it is drawn (O(log n)
+ *    a step) and adding a container's entries only once everything inside it is
+ *    drawn (precedence constraints for nested contours);
  * 2. improvement: 2-opt and Or-opt over neighbour lists (src/plan/improve.ts);
  * 3. each closed contour is re-entered at its best vertex given its neighbours in
  *    the order (moving its start point), and steps 2–3 run once more.
  */
 import { PointTree } from './pointTree.js';
 import { improve } from './improve.js';
+import { greedyOrder, type EntryPoints } from './greedy.js';
 import { Tour, dist } from './tour.js';
 
 /** A contour to order, mm (stride 2). */
@@ -42,7 +44,7 @@ export interface OrderSettings {
 /** Entries of a closed contour offered to the construction (evenly spaced); the best vertex is chosen exactly afterwards. */
 const CLOSED_ENTRIES = 32;
 /** Candidate neighbours per end. */
-const NEIGHBOURS = 6;
+const NEIGHBOURS = 8;
 /** Improvement rounds (each followed by re-choosing the closed contours' entries). */
 const ROUNDS = 2;
 
@@ -56,7 +58,11 @@ export function orderContours(items: readonly OrderItem[], settings: OrderSettin
   }
   const entry = new Int32Array(n);
   if (settings.parents) t.setParents(settings.parents);
-  construct(items, t, entry);
+  if (settings.parents) construct(items, t, entry);
+  else {
+    const single = items.map((it) => it.closed || it.xy.length < 4);
+    greedyOrder(entryPoints(items), single, t, entry, (i, v) => setEnds(items, t, i, v));
+  }
   const limits = { maxSpan: 50_000, maxMoves: 100 * n + 1000 };
   for (let round = 0; round < ROUNDS && n > 1; round++) {
     improve(t, candidates(t, items), 2 * NEIGHBOURS, limits);
@@ -80,8 +86,8 @@ function setEnds(items: readonly OrderItem[], t: Tour, i: number, entryVertex: n
   }
 }
 
-/** Nearest-neighbour construction over all entry points. */
-function construct(items: readonly OrderItem[], t: Tour, entry: Int32Array): void {
+/** Entry points: both ends of an open contour, up to CLOSED_ENTRIES vertices evenly spaced of a closed one. */
+function entryPoints(items: readonly OrderItem[]): EntryPoints {
   const n = items.length;
   const first = new Int32Array(n + 1);
   for (let i = 0; i < n; i++) {
@@ -94,7 +100,6 @@ function construct(items: readonly OrderItem[], t: Tour, entry: Int32Array): voi
   for (let i = 0; i < n; i++) {
     const xy = items[i].xy, nv = xy.length >> 1, m = first[i + 1] - first[i];
     for (let k = 0; k < m; k++) {
-      // Open: the two ends; closed: m vertices evenly spaced.
       const v = items[i].closed ? Math.floor((k * nv) / m) : k === 0 ? 0 : nv - 1;
       const p = first[i] + k;
       pts[2 * p] = xy[2 * v];
@@ -103,6 +108,13 @@ function construct(items: readonly OrderItem[], t: Tour, entry: Int32Array): voi
       vertex[p] = v;
     }
   }
+  return { pts, first, owner, vertex };
+}
+
+/** Nearest-neighbour construction over all entry points, holding a container back until its contents are drawn. */
+function construct(items: readonly OrderItem[], t: Tour, entry: Int32Array): void {
+  const n = items.length;
+  const { pts, first, owner, vertex } = entryPoints(items);
   const tree = new PointTree(pts);
   const pending = new Int32Array(n);
   const par = t.parent;
@@ -146,14 +158,15 @@ function candidates(t: Tour, items: readonly OrderItem[]): Int32Array {
   for (let i = 0; i < n; i++) pts.set([t.ax[i], t.ay[i], t.bx[i], t.by[i]], 4 * i);
   const tree = new PointTree(pts);
   const cand = new Int32Array(n * k).fill(-1);
-  const ids = new Int32Array(NEIGHBOURS + 2), d2 = new Float64Array(NEIGHBOURS + 2);
+  // Twice as many points as items wanted: an item's two ends are often both among the nearest.
+  const ids = new Int32Array(2 * NEIGHBOURS), d2 = new Float64Array(2 * NEIGHBOURS);
   for (let i = 0; i < n; i++) {
     let filled = 0;
     const ends = items[i].closed ? 1 : 2;
     for (let e = 0; e < ends; e++) {
-      // A closed item's two points coincide: ask for one more so the other item count stays NEIGHBOURS.
-      const found = tree.nearestK(pts[4 * i + 2 * e], pts[4 * i + 2 * e + 1], NEIGHBOURS, Infinity, (p) => p >> 1 !== i && !(items[p >> 1].closed && (p & 1) === 1), ids, d2);
-      for (let m = 0; m < found; m++) {
+      const found = tree.nearestK(pts[4 * i + 2 * e], pts[4 * i + 2 * e + 1], 2 * NEIGHBOURS, Infinity, (p) => p >> 1 !== i && !(items[p >> 1].closed && (p & 1) === 1), ids, d2);
+      const stop = filled + NEIGHBOURS;
+      for (let m = 0; m < found && filled < stop; m++) {
         const c = ids[m] >> 1;
         let dup = false;
         for (let r = 0; r < filled; r++) if (cand[i * k + r] === c) dup = true;
