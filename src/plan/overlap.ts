@@ -3,8 +3,9 @@
  * already draws are cut out, so each line is drawn once.
  *
  * Method [derived]: every segment of every contour goes into a static R-tree
- * (flatbush). Contours are taken in input order; for each segment PQ of the
- * current contour, the kept parts of earlier contours' segments near it that run
+ * (flatbush). Contours are taken longest first (a short line lying on a long
+ * one goes whole, rather than cutting the long one in two), ties in input order;
+ * for each segment PQ of the current contour, the kept parts of earlier contours' segments near it that run
  * within 15° of parallel each cover an interval of PQ: the part of PQ beside them
  * within `distance` (src/plan/beside.ts). Covered intervals are merged along the
  * contour's arc length; an interval is removed when it covers the whole contour,
@@ -46,7 +47,7 @@ export interface OverlapResult {
 
 /**
  * Remove double lines from one group's contours.
- * @param contours in drawing order (earlier ones keep their lines)
+ * @param contours in drawing order (of two equally long, the earlier one keeps its lines)
  * @param distance how close a line must run to a kept one to count as the same line (mm)
  * @param minEnd shortest stretch removed at an open contour's end (mm)
  * @param minInner shortest stretch removed elsewhere (mm)
@@ -55,15 +56,15 @@ export function removeOverlaps(contours: readonly Polyline[], distance: number, 
   const n = contours.length;
   const base = new Uint32Array(n + 1);
   for (let c = 0; c < n; c++) base[c + 1] = base[c] + segmentCount(contours[c]);
-  const total = base[n];
+  const segs = base[n];
   const pieces: OverlapPiece[] = [];
-  if (total === 0) {
+  if (segs === 0) {
     contours.forEach((p, c) => pieces.push({ xy: p.xy, closed: p.closed, from: c, whole: true }));
     return { pieces, removedLength: 0, touched: 0 };
   }
-  const index = new Flatbush(total);
-  const owner = new Uint32Array(total);
-  const startLen = new Float64Array(total);
+  const index = new Flatbush(segs);
+  const owner = new Uint32Array(segs);
+  const startLen = new Float64Array(segs);
   for (let c = 0; c < n; c++) {
     const { xy } = contours[c];
     const nv = xy.length >> 1;
@@ -82,16 +83,22 @@ export function removeOverlaps(contours: readonly Polyline[], distance: number, 
   const kept: (Float64Array | null)[] = new Array<Float64Array | null>(n).fill(null);
   const t = new Float64Array(2);
   let removedLength = 0, touched = 0;
-  for (let c = 0; c < n; c++) {
+  const total = new Float64Array(n);
+  for (let c = 0; c < n; c++) if (base[c + 1] > base[c]) total[c] = startLen[base[c + 1] - 1] + segLength(contours[c].xy, base[c + 1] - 1 - base[c], contours[c].xy.length >> 1);
+  const order = Array.from({ length: n }, (_, c) => c).sort((a, b) => total[b] - total[a] || a - b);
+  const rank = new Int32Array(n);
+  order.forEach((c, k) => (rank[c] = k));
+  const byContour: OverlapPiece[][] = contours.map(() => []);
+  for (const c of order) {
     const { xy, closed } = contours[c];
     const nv = xy.length >> 1;
     const covered: number[] = [];
-    const L = base[c + 1] > base[c] ? startLen[base[c + 1] - 1] + segLength(xy, base[c + 1] - 1 - base[c], nv) : 0;
+    const L = total[c];
     for (let k = 0, h = base[c]; h < base[c + 1]; k++, h++) {
       const j = (k + 1) % nv;
       const px = xy[2 * k], py = xy[2 * k + 1], qx = xy[2 * j], qy = xy[2 * j + 1];
       const len = Math.hypot(qx - px, qy - py);
-      const hits = index.search(Math.min(px, qx) - distance, Math.min(py, qy) - distance, Math.max(px, qx) + distance, Math.max(py, qy) + distance, (i) => owner[i] < c);
+      const hits = index.search(Math.min(px, qx) - distance, Math.min(py, qy) - distance, Math.max(px, qx) + distance, Math.max(py, qy) + distance, (i) => rank[owner[i]] < rank[c]);
       const local: number[] = [];
       for (const hit of hits) {
         const o = owner[hit];
@@ -111,7 +118,7 @@ export function removeOverlaps(contours: readonly Polyline[], distance: number, 
     }
     const removed = chooseRemoved(covered, L, closed, minEnd, minInner);
     if (removed.length === 0) {
-      pieces.push({ xy, closed, from: c, whole: true });
+      byContour[c].push({ xy, closed, from: c, whole: true });
       continue;
     }
     touched++;
@@ -121,7 +128,7 @@ export function removeOverlaps(contours: readonly Polyline[], distance: number, 
     for (let i = 0; i < keep.length; i += 2) {
       keptLen += keep[i + 1] - keep[i];
       const piece = extract(xy, closed, startLen, base[c], keep[i], keep[i + 1], L);
-      if (piece.length >= 4) pieces.push({ xy: piece, closed: false, from: c, whole: false });
+      if (piece.length >= 4) byContour[c].push({ xy: piece, closed: false, from: c, whole: false });
       // Stored unwrapped for later queries.
       if (keep[i + 1] > L) flat.push(keep[i], L, 0, keep[i + 1] - L);
       else flat.push(keep[i], keep[i + 1]);
@@ -129,6 +136,7 @@ export function removeOverlaps(contours: readonly Polyline[], distance: number, 
     kept[c] = Float64Array.from(flat);
     removedLength += L - keptLen;
   }
+  for (const list of byContour) pieces.push(...list);
   return { pieces, removedLength, touched };
 }
 

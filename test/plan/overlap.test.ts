@@ -39,10 +39,23 @@ describe('removeOverlaps', () => {
     const mid = run([line(0, 0, 100, 0), line(70, 0.03, 30, 0.03)]);
     expect(mid.removedLength).toBeCloseTo(40, 9);
     expect(mid.pieces).toHaveLength(1);
-    // Inside the kept line's middle the second line splits in two: 0..100 over -50..150 keeps -50..0 and 100..150.
-    const split = run([line(0, 0, 100, 0), line(-50, 0.01, 150, 0.01)]);
-    expect(split.removedLength).toBeCloseTo(100, 9);
-    expect(split.pieces.filter((p) => p.from === 1).map(length)).toEqual([expect.closeTo(50, 9), expect.closeTo(50, 9)]);
+    // Two lines of equal length overlapping in the middle of the second: it splits in two.
+    // (0,0)–(100,0) then (-50,0.01)–(50,0.01) and (30,0.01)–(130,0.01): the third keeps 50..130, 80 long, minus nothing.
+    const split = run([line(0, 0, 100, 0), line(130, 0.01, 30, 0.01), line(-50, -0.01, 50, -0.01)]);
+    // Third after the first two: -50..0 kept (50), 0..50 removed; second: 100..130 kept (30), 30..100 removed (70).
+    expect(split.removedLength).toBeCloseTo(120, 9);
+    expect(split.pieces.filter((p) => p.from !== 0).map(length).sort((a, b) => a - b)).toEqual([expect.closeTo(30, 9), expect.closeTo(50, 9)]);
+    // A line over the middle of an equally long one splits it in two: (0,0)–(100,0) then (-50,0)... held in the grid test below.
+  });
+
+  it('removes a short line lying on a long one whole, whichever comes first', () => {
+    // (30,0)–(60,0) lies on (0,0)–(100,0): 30 mm removed, the long line stays in one piece.
+    for (const cs of [[line(30, 0, 60, 0), line(0, 0, 100, 0)], [line(0, 0, 100, 0), line(60, 0, 30, 0)]]) {
+      const res = run(cs);
+      expect(res.removedLength).toBeCloseTo(30, 9);
+      expect(res.pieces).toHaveLength(1);
+      expect(length(res.pieces[0])).toBeCloseTo(100, 9);
+    }
   });
 
   it('keeps crossing lines, shallow ones included', () => {
