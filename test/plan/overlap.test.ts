@@ -39,13 +39,12 @@ describe('removeOverlaps', () => {
     const mid = run([line(0, 0, 100, 0), line(70, 0.03, 30, 0.03)]);
     expect(mid.removedLength).toBeCloseTo(40, 9);
     expect(mid.pieces).toHaveLength(1);
-    // Two lines of equal length overlapping in the middle of the second: it splits in two.
-    // (0,0)–(100,0) then (-50,0.01)–(50,0.01) and (30,0.01)–(130,0.01): the third keeps 50..130, 80 long, minus nothing.
-    const split = run([line(0, 0, 100, 0), line(130, 0.01, 30, 0.01), line(-50, -0.01, 50, -0.01)]);
-    // Third after the first two: -50..0 kept (50), 0..50 removed; second: 100..130 kept (30), 30..100 removed (70).
-    expect(split.removedLength).toBeCloseTo(120, 9);
-    expect(split.pieces.filter((p) => p.from !== 0).map(length).sort((a, b) => a - b)).toEqual([expect.closeTo(30, 9), expect.closeTo(50, 9)]);
-    // A line over the middle of an equally long one splits it in two: (0,0)–(100,0) then (-50,0)... held in the grid test below.
+    // A polyline of length 40 running along one side of a square of perimeter 40 drawn first: its middle 10 goes
+    // and it splits into two pieces of 15 (interval arithmetic along the x axis).
+    const square = { xy: Float64Array.of(0, 0, 10, 0, 10, 10, 0, 10), closed: true };
+    const split = run([square, line(-15, 0.01, 0, 0.01, 10, 0.01, 25, 0.01)]);
+    expect(split.removedLength).toBeCloseTo(10, 9);
+    expect(split.pieces.filter((p) => p.from === 1).map(length)).toEqual([expect.closeTo(15, 9), expect.closeTo(15, 9)]);
   });
 
   it('removes a short line lying on a long one whole, whichever comes first', () => {
