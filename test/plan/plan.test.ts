@@ -120,6 +120,16 @@ describe('planContours', () => {
     expect(lengthOf(contours[0].xy, false)).toBeCloseTo(150, 9);
   });
 
+  it('reports how far each planned contour may lie from its input (slack)', () => {
+    // A join across a 0.06 mm gap draws a connecting line within half the gap of an input end: slack 0.03.
+    const joined = planContours([stroke([0, 0, 10, 0], 0), stroke([10.06, 0, 20, 0], 1)], ALL);
+    expect(joined.contours[0].slack).toBeCloseTo(0.03, 12);
+    // A group that lost a double line: its kept lines stand for removed ones within the overlap distance.
+    const doubled = planContours([stroke([0, 0, 10, 0], 0), stroke([0, 0.02, 10, 0.02], 1), stroke([0, 5, 10, 5], 2, 0, false, 'red')], ALL);
+    expect(doubled.contours.map((c) => c.slack)).toEqual([ALL.overlapDistance, 0]);
+    expect(planContours([stroke([0, 0, 10, 0], 0)], ALL).contours[0].slack).toBe(0);
+  });
+
   it('changes nothing with every step off', () => {
     const input = [stroke([0, 0, 10, 0], 0), stroke([0, 0, 10, 0], 1), stroke([30, 0, 20, 0], 2)];
     const { contours, stats } = planContours(input, { ...ALL, join: false, overlaps: false, order: false });
