@@ -61,6 +61,24 @@ export interface ElementReport {
   keptReason: string | null;
   status: OutcomeStatus;
   reason: OutcomeReason | null;
+  /** With the path plan: the stroke group whose planned contours draw this element (its deviation is the group's). */
+  planGroup?: string;
+}
+
+/** What the path plan did (src/plan), when it ran. */
+export interface PlanReport {
+  /** Pen-up travel from the origin and between the planned contours, document order and plan order, mm. */
+  travelBeforeMm: number;
+  travelAfterMm: number;
+  /** Contours (pen-downs or pierces) before and after. */
+  piercesBefore: number;
+  piercesAfter: number;
+  contoursJoined: number;
+  /** Lines drawn twice that were removed, mm. */
+  doubleLinesMm: number;
+  /** Stroke groups written in plan order. */
+  groups: number;
+  timeMs: number;
 }
 
 export interface FileReport {
@@ -85,6 +103,8 @@ export interface FileReport {
   warnings: string[];
   /** Present when the output is a machine file (G-code or DXF) instead of SVG. */
   machine?: MachineSummary;
+  /** Present when the path plan ran. */
+  plan?: PlanReport;
 }
 
 /** A machine file's figures (src/refitMachine.ts). Deviations are in the elements, measured on the file read back. */
