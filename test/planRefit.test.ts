@@ -121,5 +121,6 @@ describe('refitSvg with the plan', () => {
   it('refuses the plan with baked transforms, naming both options', () => {
     expect(() => refitSvg(doc(''), { plan: true, bakeTransforms: true })).toThrow(OptionError);
     expect(() => refitSvg(doc(''), { plan: true, bakeTransforms: true })).toThrow(/plan and bakeTransforms/);
+    expect(() => refitSvg(doc(''), { plan: true, joinDistance: -1 })).toThrow(/joinDistance.*-1/);
   });
 });
