@@ -137,7 +137,9 @@ function writeGroup(doc: SvgDocument, opts: Options, group: string, planned: Pla
   for (const c of planned) {
     // The fit keeps within what the plan left of the budget (a join's bridge, a removed double line).
     // A closed contour keeps the plan's entry vertex as its seam (a corner there), so it starts where the plan says.
-    const fit = fitPolyline(c.xy, { tolerance: budget.fitMm - c.slack, closed: c.closed, cornerAngle: opts.cornerAngle, corners: c.closed ? [0] : undefined });
+    // A join distance over twice the budget leaves the fit nothing: it then gets a twentieth, and the measurement decides.
+    const fitTol = Math.max(budget.fitMm - c.slack, 0.05 * tol);
+    const fit = fitPolyline(c.xy, { tolerance: fitTol, closed: c.closed, cornerAngle: opts.cornerAngle, corners: c.closed ? [0] : undefined });
     moves += straightMoves({ xy: c.xy, closed: c.closed }, tol);
     const sink = new PathWriter({ digits: budget.digits });
     const stats = emitSegments(sink, [{ segments: fit.segments, closed: c.closed }], mmToLocal, { digits: budget.digits });
