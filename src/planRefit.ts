@@ -9,7 +9,8 @@
  * element a viewer or a plotter driver can follow, and a joined contour is one
  * path with one start. A group's paths are written, in plan order, where the
  * group's first element stood, with that element's attributes (its stroke paint
- * and width are the group's by construction; `id` stays on the first path only)
+ * and width are the group's by construction; its `id` stays on the first path that
+ * draws part of it)
  * and in its coordinate system; the group's other elements are removed. Filled
  * elements, elements drawn again by `<use>` or referenced by id, and elements with
  * single-point subpaths are not planned and stay where they are.
@@ -162,7 +163,9 @@ function writeGroup(doc: SvgDocument, opts: Options, group: string, planned: Pla
     return false;
   }
   t = now();
-  const text = paths.map((d, k) => pathElement(doc, anchor, d, k === 0)).join(indentOf(doc.text, anchor.startTag[0]));
+  // The anchor's id goes with the first path that draws part of the anchor itself (the others would be misnamed).
+  const own = planned.findIndex((c) => c.sources.some((src) => src.element === anchor.index));
+  const text = paths.map((d, k) => pathElement(doc, anchor, d, k === Math.max(0, own))).join(indentOf(doc.text, anchor.startTag[0]));
   for (const m of els) {
     const start = m.el.startTag[0], end = m.el.endTag ? m.el.endTag[1] : m.el.startTag[1];
     if (m === els[0]) out.edits.push({ start, end, text });
@@ -182,11 +185,11 @@ function writeGroup(doc: SvgDocument, opts: Options, group: string, planned: Pla
   return true;
 }
 
-/** One `<path>` with the anchor's attributes (shape geometry, editor descriptions and, unless first, the id removed). */
-function pathElement(doc: SvgDocument, anchor: GeometryElement, d: string, first: boolean): string {
+/** One `<path>` with the anchor's attributes (shape geometry, editor descriptions and, unless `keepId`, the id removed). */
+function pathElement(doc: SvgDocument, anchor: GeometryElement, d: string, keepId: boolean): string {
   const remove = anchor.name === 'path' ? [] : SHAPE_ATTRS[anchor.name].filter((a) => a in anchor.attrs);
   remove.push(...parametricAttributes(anchor.attrs, anchor.namespaces));
-  if (!first && 'id' in anchor.attrs) remove.push('id');
+  if (!keepId && 'id' in anchor.attrs) remove.push('id');
   const edits = editStartTag(doc.text, anchor, { rename: anchor.name === 'path' ? undefined : 'path', set: { d }, remove });
   // The edits touch only the start tag: apply them to the text up to its end and keep the new tag.
   const tag = applyEdits(doc.text.slice(0, anchor.startTag[1]), edits).slice(anchor.startTag[0]);

@@ -118,6 +118,16 @@ describe('refitSvg with the plan', () => {
     expect(starts.map((v) => Math.round(v))).toEqual([10, 20, 30, 40]);
   });
 
+  it('keeps an id on the path that draws its element, wherever the order puts it', () => {
+    // The square named "part" comes first in the file, but the small circle near the origin is drawn first.
+    const body = '  <path id="part" d="M100 100H180V180H100Z" fill="none" stroke="#000"/>\n  <circle cx="10" cy="10" r="3" fill="none" stroke="#000"/>\n';
+    const r = refitSvg(doc(body), { plan: true, tolerance: 0.1 });
+    const tags = [...r.text.matchAll(/<path\b[^>]*>/g)].map((m) => m[0]);
+    expect(tags).toHaveLength(2);
+    expect(tags[0]).not.toContain('id=');
+    expect(tags[1]).toContain('id="part"');
+  });
+
   it('refuses the plan with baked transforms, naming both options', () => {
     expect(() => refitSvg(doc(''), { plan: true, bakeTransforms: true })).toThrow(OptionError);
     expect(() => refitSvg(doc(''), { plan: true, bakeTransforms: true })).toThrow(/plan and bakeTransforms/);
