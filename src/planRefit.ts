@@ -90,29 +90,32 @@ export function planDocument(doc: SvgDocument, opts: Options, times: StageTimes)
     const group = `${stroke} ${strokeWidthMm === null ? '' : `${+strokeWidthMm.toPrecision(6)} mm`}`.trim();
     model.contours.forEach((c, k) => input.push({ xy: c.xy, closed: c.closed, group, filled: false, source: { element: el.index, subpath: k } }));
   }
-  const result = planContours(input, {
-    join: opts.planJoin, overlaps: opts.planDoubles, order: opts.planOrder, holesFirst: opts.holesFirst,
-    joinDistance: opts.joinDistance ?? tol, overlapDistance: PLAN_OVERLAP_SHARE * tol, start: [0, 0],
-  });
   const out: PlanOutcome = {
     handled: new Set(), edits: [], reports: new Map(), warnings: [],
-    report: { travelBeforeMm: 0, travelAfterMm: 0, piercesBefore: 0, piercesAfter: 0, contoursJoined: result.stats.contoursJoined, doubleLinesMm: result.stats.doubleLength, groups: 0, timeMs: 0 },
+    report: { travelBeforeMm: 0, travelAfterMm: 0, piercesBefore: 0, piercesAfter: 0, contoursJoined: 0, doubleLinesMm: 0, groups: 0, timeMs: 0 },
   };
-  // The plan's contours by group, in plan order; each group's elements in document order.
-  const groups = new Map<string, PlannedContour[]>();
-  for (const c of result.contours) (groups.get(c.group) ?? groups.set(c.group, []).get(c.group)!).push(c);
-  const elementsOf = new Map<string, number[]>();
-  for (const c of input) {
-    const list = elementsOf.get(c.group) ?? elementsOf.set(c.group, []).get(c.group)!;
-    if (list[list.length - 1] !== c.source.element) list.push(c.source.element);
-  }
+  // Each group planned alone (groups never mix), in the order they first appear, each starting where the last one ended;
+  // a group that is not written (over the tolerance) adds nothing to the figures.
+  const byGroup = new Map<string, PlanContour[]>();
+  for (const c of input) (byGroup.get(c.group) ?? byGroup.set(c.group, []).get(c.group)!).push(c);
   const written: PlannedContour[] = [];
-  for (const [group, planned] of groups) {
-    const els = elementsOf.get(group)!.map((i) => members.get(i)!);
-    if (writeGroup(doc, opts, group, planned, els, out, times)) {
-      written.push(...planned);
-      out.report.groups++;
-    }
+  let start: [number, number] = [0, 0];
+  for (const [group, contours] of byGroup) {
+    const result = planContours(contours, {
+      join: opts.planJoin, overlaps: opts.planDoubles, order: opts.planOrder, holesFirst: opts.holesFirst,
+      joinDistance: opts.joinDistance ?? tol, overlapDistance: PLAN_OVERLAP_SHARE * tol, start,
+    });
+    const elements: number[] = [];
+    for (const c of contours) if (elements[elements.length - 1] !== c.source.element) elements.push(c.source.element);
+    const planned = result.contours;
+    if (!writeGroup(doc, opts, group, planned, elements.map((i) => members.get(i)!), out, times)) continue;
+    written.push(...planned);
+    out.report.groups++;
+    out.report.contoursJoined += result.stats.contoursJoined;
+    out.report.doubleLinesMm += result.stats.doubleLength;
+    const last = planned[planned.length - 1];
+    if (last) start = [last.xy[0], last.xy[1]];
+    if (last && !last.closed) start = [last.xy[last.xy.length - 2], last.xy[last.xy.length - 1]];
   }
   // Travel of what the plan wrote, before (document order) and after (plan order), from the origin.
   const before = input.filter((c) => out.handled.has(c.source.element));
@@ -159,7 +162,8 @@ function writeGroup(doc: SvgDocument, opts: Options, group: string, planned: Pla
   const deviation = compareSampled(original, result, anchor.toMm, chord);
   times.measure += now() - t;
   if (parsed.some((p) => p.error) || !deviation || !(deviation.max <= tol)) {
-    out.warnings.push(`plan: the ${group} group measured ${deviation ? `${deviation.max.toPrecision(3)} mm` : 'nothing'} against the tolerance; its elements are refitted one by one instead`);
+    const what = deviation ? `measured ${deviation.max.toPrecision(3)} mm, over the ${+tol.toPrecision(6)} mm tolerance` : 'could not be measured';
+    out.warnings.push(`plan: the ${group} group ${what}; its elements are refitted one by one instead`);
     return false;
   }
   t = now();

@@ -128,6 +128,18 @@ describe('refitSvg with the plan', () => {
     expect(tags[1]).toContain('id="part"');
   });
 
+  it('falls back to refitting one by one when a group measures over the tolerance', () => {
+    // A join across a 0.5 mm gap (join distance 1 mm) draws a bridge whose middle is 0.25 mm from the drawing
+    // (half the gap, Pythagoras-free: it lies on the line between the two ends), over the 0.1 mm tolerance.
+    const body = '  <path d="M0 0L50 0" stroke="#000" fill="none"/>\n  <path d="M50.5 0L100 0" stroke="#000" fill="none"/>\n';
+    const r = refitSvg(doc(body), { plan: true, tolerance: 0.1, joinDistance: 1 });
+    expect(r.report.plan!.groups).toBe(0);
+    expect(r.report.plan!.contoursJoined).toBe(0);
+    expect(r.report.warnings.join(' ')).toMatch(/plan: the #000 group measured 0\.25\d* mm/);
+    expect(r.report.totals.withinTolerance).toBe(true);
+    expect(r.report.elements.every((e) => e.planGroup === undefined)).toBe(true);
+  });
+
   it('refuses the plan with baked transforms, naming both options', () => {
     expect(() => refitSvg(doc(''), { plan: true, bakeTransforms: true })).toThrow(OptionError);
     expect(() => refitSvg(doc(''), { plan: true, bakeTransforms: true })).toThrow(/plan and bakeTransforms/);
