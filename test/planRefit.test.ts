@@ -140,9 +140,10 @@ describe('refitSvg with the plan', () => {
     expect(r.report.elements.every((e) => e.planGroup === undefined)).toBe(true);
   });
 
-  it('refuses the plan with baked transforms, naming both options', () => {
+  it('refuses the plan with baked transforms or machine output, naming the options', () => {
     expect(() => refitSvg(doc(''), { plan: true, bakeTransforms: true })).toThrow(OptionError);
     expect(() => refitSvg(doc(''), { plan: true, bakeTransforms: true })).toThrow(/plan and bakeTransforms/);
     expect(() => refitSvg(doc(''), { plan: true, joinDistance: -1 })).toThrow(/joinDistance.*-1/);
+    expect(() => refitSvg(doc(''), { plan: true, format: 'gcode' })).toThrow(/plan writes SVG only for now, not gcode/);
   });
 });
