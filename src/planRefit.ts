@@ -28,6 +28,7 @@ import type { ParsedPath } from './svg/pathTypes.js';
 import { drawingElementFromSvg, readGeometry } from './model/fromSvg.js';
 import type { DrawingElement } from './model/drawing.js';
 import { straightMoves } from './model/fit.js';
+import { resolveStyle } from './model/style.js';
 import { splitTolerance } from './budget.js';
 import { fitPolyline } from './fit/fitPolyline.js';
 import { arcGeometry } from './fit/segment.js';
@@ -76,6 +77,9 @@ export function planDocument(doc: SvgDocument, opts: Options, times: StageTimes)
   const input: PlanContour[] = [];
   for (const el of doc.elements) {
     if (!el.rewritable || el.copyScale > 1 || (el.id !== null && referenced(doc.text, el.id))) continue;
+    // Stroke only, decided before any geometry is read (filled elements are refitted one by one, untouched here).
+    const style = resolveStyle(el.attrs, el.inheritedStyle, el.toMm, el.viewportW, el.viewportH);
+    if (style.fill !== 'none' || style.stroke === null || style.stroke === 'none') continue;
     let t = now();
     const p = readGeometry(el, []);
     times.parse += now() - t;
