@@ -25,6 +25,18 @@ export interface Options {
   machineProfile: string;
   /** Machine output: the page corner at the machine origin (Y always points up). */
   machineOrigin: 'lower-left' | 'upper-left';
+  /** Plan the path of stroke-only geometry, per stroke colour: join, draw double lines once, reorder (src/plan). */
+  plan: boolean;
+  /** With `plan`: join open contours whose ends meet. */
+  planJoin: boolean;
+  /** With `plan`: draw lines drawn twice (exactly, reversed or in part) once. */
+  planDoubles: boolean;
+  /** With `plan`: reorder, reverse open contours and move closed contours' start to shorten travel. */
+  planOrder: boolean;
+  /** With `plan`: draw every contour inside a closed contour before that contour (holes before the part). */
+  holesFirst: boolean;
+  /** With `plan`: ends closer than this are joined, mm; null: the tolerance. */
+  joinDistance: number | null;
 }
 
 /** Output formats. */
@@ -56,6 +68,12 @@ export const DEFAULT_OPTIONS: Readonly<Options> = Object.freeze({
   format: 'svg',
   machineProfile: 'laser',
   machineOrigin: 'lower-left',
+  plan: false,
+  planJoin: true,
+  planDoubles: true,
+  planOrder: true,
+  holesFirst: false,
+  joinDistance: null,
 });
 
 export const OPTION_DOCS: Readonly<Record<keyof Options, OptionDoc>> = Object.freeze({
@@ -69,6 +87,12 @@ export const OPTION_DOCS: Readonly<Record<keyof Options, OptionDoc>> = Object.fr
   format: { meaning: 'output: svg, gcode or dxf (the same fit; a machine file is read back and measured)', unit: 'name' },
   machineProfile: { meaning: 'machine profile for G-code: laser, pen-z, pen-servo or a JSON profile', unit: 'name' },
   machineOrigin: { meaning: 'page corner at the machine origin in G-code and DXF: lower-left or upper-left', unit: 'name' },
+  plan: { meaning: 'plan the path of stroke-only (unfilled) geometry per stroke colour: join ends that meet, draw double lines once, reorder for short travel; filled shapes are left alone', unit: 'flag' },
+  planJoin: { meaning: 'with the plan: join open contours whose ends meet', unit: 'flag' },
+  planDoubles: { meaning: 'with the plan: draw lines drawn twice (exactly, reversed, in part) once', unit: 'flag' },
+  planOrder: { meaning: 'with the plan: reorder and reverse contours and move closed contours\' start points for short travel', unit: 'flag' },
+  holesFirst: { meaning: 'with the plan: cut every contour inside a closed contour before that contour (holes before the part)', unit: 'flag' },
+  joinDistance: { meaning: 'with the plan: ends closer than this are joined (default: the tolerance)', unit: 'mm' },
 });
 
 /** Error for an option value a user gave; its message names the option and the bad value. */
@@ -128,6 +152,12 @@ export function resolveOptions(input: ArcsplineOptions = {}): Options {
     format: partial.format ?? DEFAULT_OPTIONS.format,
     machineProfile: partial.machineProfile ?? DEFAULT_OPTIONS.machineProfile,
     machineOrigin: partial.machineOrigin ?? DEFAULT_OPTIONS.machineOrigin,
+    plan: partial.plan ?? DEFAULT_OPTIONS.plan,
+    planJoin: partial.planJoin ?? DEFAULT_OPTIONS.planJoin,
+    planDoubles: partial.planDoubles ?? DEFAULT_OPTIONS.planDoubles,
+    planOrder: partial.planOrder ?? DEFAULT_OPTIONS.planOrder,
+    holesFirst: partial.holesFirst ?? DEFAULT_OPTIONS.holesFirst,
+    joinDistance: partial.joinDistance === undefined ? DEFAULT_OPTIONS.joinDistance : partial.joinDistance,
   };
   if (!(o.tolerance > 0) || !Number.isFinite(o.tolerance)) {
     throw new OptionError(`tolerance must be a positive number of mm, got ${String(partial.tolerance)}`);
@@ -150,6 +180,13 @@ export function resolveOptions(input: ArcsplineOptions = {}): Options {
   }
   if (o.machineOrigin !== 'lower-left' && o.machineOrigin !== 'upper-left') {
     throw new OptionError(`machineOrigin must be lower-left or upper-left, got ${String(partial.machineOrigin)}`);
+  }
+  if (o.joinDistance !== null && !(o.joinDistance >= 0 && Number.isFinite(o.joinDistance))) {
+    throw new OptionError(`joinDistance must be a number of mm from 0 up (or null for the tolerance), got ${String(partial.joinDistance)}`);
+  }
+  if (o.plan && o.bakeTransforms) throw new OptionError('plan and bakeTransforms cannot be used together yet: the plan writes each colour\'s contours in the coordinates of its first element');
+  if (o.plan && o.format !== 'svg') {
+    throw new OptionError(`plan writes SVG only for now, not ${o.format}: plan to SVG first (--plan -o planned.svg), then write the machine file from planned.svg, which keeps the plan's order`);
   }
   return o;
 }

@@ -19,6 +19,7 @@ import { elementTag } from './report/table.js';
 import type { ElementReport, FileReport } from './report/types.js';
 import { refitElement, untouchedReport } from './refitElement.js';
 import { copiesSummary, editorSummary, summarise, untouchedSummary, wigglySummary } from './refitSummary.js';
+import { planDocument, type PlanOutcome } from './planRefit.js';
 
 /** Time spent per stage, milliseconds. */
 export interface StageTimes {
@@ -52,8 +53,10 @@ export function refitSvg(text: string, options: ArcsplineOptions = {}, file: str
   const t = now();
   const doc = readSvg(text, { assumedMmPerUnit: opts.assumedMmPerUnit, maxInputChars: opts.maxInputBytes });
   times.parse += now() - t;
-  const outcomes = doc.elements.filter((el) => el.rewritable).map((el) => refitOne(doc, el, opts, times));
-  return assemble(text, doc, outcomes, opts, file, times, t0);
+  // With the plan, the stroke-only elements it writes are not refitted one by one (src/planRefit.ts).
+  const planned = opts.plan ? planDocument(doc, opts, times) : null;
+  const outcomes = doc.elements.filter((el) => el.rewritable && !planned?.handled.has(el.index)).map((el) => refitOne(doc, el, opts, times));
+  return assemble(text, doc, outcomes, opts, file, times, t0, planned);
 }
 
 /** Fresh stage times. */
@@ -81,6 +84,7 @@ export function refitOne(doc: Pick<SvgDocument, 'text' | 'rootToMm'>, el: Geomet
 /** Put the outcomes (in document order) together into the new text and the report. */
 export function assemble(
   text: string, doc: SvgDocument, outcomes: ElementOutcome[], opts: Options, file: string | null, times: StageTimes, t0: number,
+  planned: PlanOutcome | null = null,
 ): RefitResult {
   const warnings = doc.warnings.slice();
   const untouched = untouchedSummary(doc);
@@ -97,6 +101,11 @@ export function assemble(
       elements.push(untouchedReport(el));
       continue;
     }
+    const fromPlan = planned?.reports.get(el.index);
+    if (fromPlan) {
+      elements.push(fromPlan);
+      continue;
+    }
     const o = byIndex.get(el.index);
     if (!o) continue;
     warnings.push(...o.warnings);
@@ -107,6 +116,10 @@ export function assemble(
       if (o.droppedEditorAttrs && o.droppedEditorAttrs.length > 0) dropped.push({ tag: elementTag(el), names: o.droppedEditorAttrs });
     }
   }
+  if (planned) {
+    warnings.push(...planned.warnings);
+    edits.push(...planned.edits);
+  }
   const editor = editorSummary(dropped);
   if (editor) warnings.push(editor);
   const wiggly = wigglySummary(elements, opts.tolerance);
@@ -115,5 +128,6 @@ export function assemble(
   const out = applyEdits(text, edits);
   times.write += now() - t;
   const report = summarise(elements, opts.tolerance, text, out, warnings, file, now() - t0);
+  if (planned) report.plan = planned.report;
   return { text: out, report, times };
 }

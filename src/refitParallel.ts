@@ -68,7 +68,8 @@ export async function refitSvgParallel(
 ): Promise<RefitResult> {
   const url = compiledWorkerUrl();
   // Small documents, one thread, or no compiled worker: exactly the one-thread call.
-  if (!url || jobs < 2 || text.length < minChars) return refitSvg(text, partial, file);
+  // The path plan looks at the whole document at once: it runs on this thread.
+  if (!url || jobs < 2 || text.length < minChars || resolveOptions(partial).plan) return refitSvg(text, partial, file);
   const t0 = performance.now();
   const opts = resolveOptions(partial);
   const times = emptyTimes();

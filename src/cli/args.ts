@@ -24,6 +24,12 @@ export const OPTION_FLAGS: Readonly<Record<keyof Options, string>> = Object.free
   format: '--format <name>',
   machineProfile: '--profile <name|file.json>',
   machineOrigin: '--origin <corner>',
+  plan: '--plan',
+  planJoin: '--no-plan-join',
+  planDoubles: '--no-plan-doubles',
+  planOrder: '--no-plan-order',
+  holesFirst: '--holes-first',
+  joinDistance: '--join-distance <length>',
 });
 
 /** Commander's attribute name for each option's flag (the camel-cased long flag). */
@@ -38,6 +44,12 @@ const ATTRIBUTE: Readonly<Record<keyof Options, string>> = Object.freeze({
   format: 'format',
   machineProfile: 'profile',
   machineOrigin: 'origin',
+  plan: 'plan',
+  planJoin: 'planJoin',
+  planDoubles: 'planDoubles',
+  planOrder: 'planOrder',
+  holesFirst: 'holesFirst',
+  joinDistance: 'joinDistance',
 });
 
 /** Flags of the command itself (not library options), as parsed. */
@@ -128,6 +140,17 @@ export function parseMaxInput(text: string): number {
   return validated('maxInputBytes', Math.round(parseNumber(text, 'MB') * 2 ** 20));
 }
 
+/** `--join-distance`: a length as for the tolerance; zero (join only ends that coincide) is allowed. */
+function parseJoinDistance(text: string): number {
+  const zero = /^\s*(?:0+\.?0*|\.0+)\s*[a-z]*\s*$/i.test(text);
+  try {
+    return validated('joinDistance', zero ? 0 : parseToleranceText(text)) ?? 0;
+  } catch (e) {
+    if (e instanceof InvalidArgumentError) throw e;
+    throw new InvalidArgumentError(`"${text}" is not a length from 0 up; use e.g. 0.1mm, 0.004in or a bare number in mm`);
+  }
+}
+
 const PARSERS: Readonly<Partial<Record<keyof Options, (text: string) => unknown>>> = Object.freeze({
   tolerance: parseTolerance,
   cornerAngle: (t: string) => validated('cornerAngle', parseNumber(t, 'degrees')),
@@ -137,6 +160,7 @@ const PARSERS: Readonly<Partial<Record<keyof Options, (text: string) => unknown>
   format: (t: string) => validated('format', t.toLowerCase() as OutputFormat),
   machineProfile: parseProfileArg,
   machineOrigin: (t: string) => validated('machineOrigin', t.toLowerCase() as Options['machineOrigin']),
+  joinDistance: parseJoinDistance,
 });
 
 /**
@@ -305,7 +329,8 @@ export function parsedArgs(program: Command): ParsedArgs {
   const options: Partial<Options> = {};
   for (const key of Object.keys(ATTRIBUTE) as (keyof Options)[]) {
     const v = o[ATTRIBUTE[key]];
-    if (v !== undefined) (options as Record<string, unknown>)[key] = v;
+    // A --no-x flag makes commander set x = true by default: only values the user gave count.
+    if (v !== undefined && program.getOptionValueSource(ATTRIBUTE[key]) !== 'default') (options as Record<string, unknown>)[key] = v;
   }
   return {
     inputs: program.args.slice(),

@@ -65,6 +65,8 @@ export interface ElementReport {
   style: ElementPaint;
   /** Copies drawn elsewhere by `<use>` (0 when none); each is kept within the tolerance. */
   copies: number;
+  /** With the path plan: the stroke group whose planned contours draw this element (its deviation is the group's). */
+  planGroup?: string;
 }
 
 /** How an element is painted: what cutters and plotters map to operations (cut, score, engrave; pen 1, 2). */
@@ -85,6 +87,22 @@ export interface PaintGroup {
   elements: number;
   /** Of those, rewritten (count). */
   rewritten: number;
+}
+
+/** What the path plan did (src/plan), when it ran. */
+export interface PlanReport {
+  /** Pen-up travel from the origin and between the planned contours, document order and plan order, mm. */
+  travelBeforeMm: number;
+  travelAfterMm: number;
+  /** Contours (pen-downs or pierces) before and after. */
+  piercesBefore: number;
+  piercesAfter: number;
+  contoursJoined: number;
+  /** Lines drawn twice that were removed, mm. */
+  doubleLinesMm: number;
+  /** Stroke groups written in plan order. */
+  groups: number;
+  timeMs: number;
 }
 
 export interface FileReport {
@@ -111,6 +129,8 @@ export interface FileReport {
   warnings: string[];
   /** Present when the output is a machine file (G-code or DXF) instead of SVG. */
   machine?: MachineSummary;
+  /** Present when the path plan ran. */
+  plan?: PlanReport;
 }
 
 /** A machine file's figures (src/refitMachine.ts). Deviations are in the elements, measured on the file read back. */

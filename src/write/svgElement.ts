@@ -15,7 +15,7 @@ import { editStartTag, type Edit } from './document.js';
 import { parametricAttributes } from './editorAttrs.js';
 
 /** Attributes a shape loses when it becomes a path. */
-const SHAPE_ATTRS: Readonly<Record<ShapeName, readonly string[]>> = {
+export const SHAPE_ATTRS: Readonly<Record<ShapeName, readonly string[]>> = {
   rect: ['x', 'y', 'width', 'height', 'rx', 'ry'],
   circle: ['cx', 'cy', 'r'],
   ellipse: ['cx', 'cy', 'rx', 'ry'],

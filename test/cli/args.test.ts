@@ -36,6 +36,15 @@ describe('flags onto the options object', () => {
     expect(a.inputs).toEqual(['in.svg']);
   });
 
+  it('maps the path plan flags; a --no- flag not given sets nothing', () => {
+    expect(parse(['in.svg', '--plan', '--holes-first', '--join-distance', '0.2mm']).options).toEqual({ plan: true, holesFirst: true, joinDistance: 0.2 });
+    expect(parse(['in.svg', '--plan', '--no-plan-join', '--no-plan-doubles', '--no-plan-order']).options).toEqual({ plan: true, planJoin: false, planDoubles: false, planOrder: false });
+    // 0 joins only ends that coincide; 0.01in is 0.254 mm (CSS Values 3 §5.2).
+    expect(parse(['in.svg', '--join-distance', '0']).options.joinDistance).toBe(0);
+    expect(parse(['in.svg', '--join-distance', '0.01in']).options.joinDistance).toBeCloseTo(0.254, 12);
+    expect(() => parse(['in.svg', '--join-distance', 'far'])).toThrow(/far/);
+  });
+
   it('reads the command flags', () => {
     const a = parse(['-', '-o', '-', '--report', 'r.json', '--in-place', '--no-backup', '-q', '--debug']);
     expect(a.inputs).toEqual(['-']);

@@ -67,10 +67,11 @@ export const MACHINE_KEYS = ['format', 'profile', 'origin', 'digits', 'lines', '
 // The lists above must name every field: a field added to the types without a test fails to compile here.
 type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
 const complete: [
-  Same<Exclude<keyof FileReport, 'machine'>, (typeof FILE_REPORT_KEYS)[number]>,
+  // plan and planGroup appear only with the path plan (test/planRefit.test.ts).
+  Same<Exclude<keyof FileReport, 'machine' | 'plan'>, (typeof FILE_REPORT_KEYS)[number]>,
   Same<keyof MachineSummary, (typeof MACHINE_KEYS)[number]>,
   Same<keyof FileReport['totals'], (typeof TOTALS_KEYS)[number]>,
-  Same<keyof ElementReport, (typeof ELEMENT_KEYS)[number]>,
+  Same<keyof ElementReport, (typeof ELEMENT_KEYS)[number] | 'planGroup'>,
   Same<keyof Deviation, (typeof DEVIATION_KEYS)[number]>,
 ] = [true, true, true, true, true];
 void complete;

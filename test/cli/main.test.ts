@@ -213,3 +213,19 @@ describe('--help and --version', () => {
     expect(r.stdout).toBe(`${pkg.version}\n`);
   });
 });
+
+describe('--plan from the command line', () => {
+  it('writes the planned SVG, the plan in the report and a plan part in the summary line', async () => {
+    const r = await run([BRACKET_PATH, '-o', at('out.svg'), '--plan', '--report', at('report.json')]);
+    expect(r.code).toBe(EXIT_OK);
+    const report = JSON.parse(readFileSync(at('report.json'), 'utf8')) as FileReport;
+    expect(Object.keys(report).sort()).toEqual([...FILE_REPORT_KEYS, 'plan'].sort());
+    // The sample's cut and engrave groups are stroke only: both are planned, travel from the origin gets shorter.
+    expect(report.plan!.groups).toBe(2);
+    expect(report.plan!.travelAfterMm).toBeLessThan(report.plan!.travelBeforeMm);
+    expect(report.totals.withinTolerance).toBe(true);
+    expect(r.stderr).toMatch(/; plan: travel \d+ mm → \d+ mm, \d+ → \d+ pierces/);
+    // The same options object as the library: the written text is refitSvg's.
+    expect(readFileSync(at('out.svg'), 'utf8')).toBe(refitSvg(BRACKET, { plan: true }).text);
+  });
+});

@@ -36,6 +36,14 @@ describe('summaryLine', () => {
     expect(summaryLine('b', report([element({})]))).toMatch(/^b: 1801 commands → 45 segments/);
   });
 
+  it('adds what the path plan did when it ran', () => {
+    const r = report([element({})]);
+    r.plan = { travelBeforeMm: 52380, travelAfterMm: 4251, piercesBefore: 2142, piercesAfter: 2101, contoursJoined: 41, doubleLinesMm: 4347, groups: 1, timeMs: 3 };
+    expect(summaryLine('b', r)).toMatch(/2\.0 kB; plan: travel 52\.4 m → 4\.25 m, 2142 → 2101 pierces, 41 joined, 4\.35 m of double lines removed$/);
+    r.plan = { ...r.plan, travelBeforeMm: 180.2, travelAfterMm: 91.4, piercesAfter: 1, contoursJoined: 0, doubleLinesMm: 0 };
+    expect(summaryLine('b', r)).toMatch(/; plan: travel 180 mm → 91\.4 mm, 2142 → 1 pierce$/);
+  });
+
   it('says so when nothing was refitted or there was nothing to refit, and counts elements over the tolerance', () => {
     const over = element({ kept: true, keptReason: 'measured deviation 0.2 mm is over the tolerance', status: 'reverted', reason: 'over-tolerance', deviation: { ...element({}).deviation!, max: 0.2 } });
     expect(summaryLine('f', report([over]))).toBe('f: nothing refitted (1 element kept as written), 32.5 kB → 2.0 kB; 1 element over the tolerance kept unchanged');
