@@ -135,7 +135,7 @@ describe('refitSvg with the plan', () => {
     const r = refitSvg(doc(body), { plan: true, tolerance: 0.1, joinDistance: 1 });
     expect(r.report.plan!.groups).toBe(0);
     expect(r.report.plan!.contoursJoined).toBe(0);
-    expect(r.report.warnings.join(' ')).toMatch(/plan: the #000 group measured 0\.25\d* mm/);
+    expect(r.report.warnings.join(' ')).toMatch(/plan: the #000000 1 mm group measured 0\.25\d* mm/);
     expect(r.report.totals.withinTolerance).toBe(true);
     expect(r.report.elements.every((e) => e.planGroup === undefined)).toBe(true);
   });
