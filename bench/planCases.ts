@@ -1,17 +1,7 @@
 /** Seeded generators for the plan benchmark: random strokes, and a drawing of outlines with hatching. */
 import type { PlanContour } from '../src/plan/types.js';
-
-/** mulberry32 (common practice), as test/rng.ts. */
-export function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+// The tests' seeded generator (mulberry32), so the bench's cases are the tests' cases for one seed.
+import { rng } from '../test/rng.js';
 
 /** `n` straight strokes in a `side` × `side` mm square, random direction, length uniform in [lo, hi] mm. */
 export function randomStrokes(n: number, lo: number, hi: number, seed: number, side = 300): PlanContour[] {

@@ -16,6 +16,7 @@
  * angle(P1). No handles or subclass markers (R13+ only).
  */
 import type { MachineGroupStart, MachineSink } from '../machine/sink.js';
+import { arcOnRoundedChord } from '../machine/roundedArc.js';
 import { angleDigits, formatNumber } from './numbers.js';
 import { gcodeNumber } from './gcode.js';
 
@@ -117,19 +118,13 @@ export class DxfWriter implements MachineSink {
       this.stats.skipped++;
       return;
     }
-    // As in the G-code writer: the centre on the rounded chord's bisector, so both ends lie on the circle.
-    const mx = (sx + ex) / 2, my = (sy + ey) / 2;
-    const ux = ex - sx, uy = ey - sy, c = Math.hypot(ux, uy);
-    const nx = -uy / c, ny = ux / c;
-    const t = (cx - mx) * nx + (cy - my) * ny;
-    const r = Math.hypot(c / 2, t);
-    // Sagitta: a counter-clockwise arc with its centre left of the chord (t > 0) is the short one.
-    if ((ccw === t > 0 ? r - Math.abs(t) : r + Math.abs(t)) <= this.q) {
+    const a = arcOnRoundedChord(sx, sy, ex, ey, cx, cy, ccw, this.q);
+    if (a === null) {
       this.stats.flat++;
       this.lineTo(ex, ey);
       return;
     }
-    const ox = mx + t * nx, oy = my + t * ny;
+    const { ox, oy, r } = a;
     const a0 = Math.atan2(sy - oy, sx - ox) * DEG, a1 = Math.atan2(ey - oy, ex - ox) * DEG;
     const [from, to] = ccw ? [a0, a1] : [a1, a0];
     const ad = angleDigits(this.d, r);

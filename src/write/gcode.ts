@@ -15,6 +15,7 @@
  * the text, since a comment may not contain another "(" (NIST §3.3.4).
  */
 import type { MachineGroupStart, MachineSink } from '../machine/sink.js';
+import { arcOnRoundedChord } from '../machine/roundedArc.js';
 import { colourSettings, fillLine, type MachineProfile } from '../machine/profile.js';
 import { formatNumber } from './numbers.js';
 
@@ -136,19 +137,13 @@ export class GcodeWriter implements MachineSink {
       this.stats.skipped++;
       return;
     }
-    // Centre moved onto the bisector of the rounded chord: m + ((C − m)·n)·n.
-    const mx = (sx + ex) / 2, my = (sy + ey) / 2;
-    const ux = ex - sx, uy = ey - sy, c = Math.hypot(ux, uy);
-    const nx = -uy / c, ny = ux / c;
-    const t = (cx - mx) * nx + (cy - my) * ny;
-    const r = Math.hypot(c / 2, t);
-    // Sagitta: a counter-clockwise arc with its centre left of the chord (t > 0) is the short one.
-    if ((ccw === t > 0 ? r - Math.abs(t) : r + Math.abs(t)) <= this.q) {
+    const a = arcOnRoundedChord(sx, sy, ex, ey, cx, cy, ccw, this.q);
+    if (a === null) {
       this.stats.flat++;
       this.lineTo(ex, ey);
       return;
     }
-    const i = this.r(mx + t * nx - sx), j = this.r(my + t * ny - sy);
+    const i = this.r(a.ox - sx), j = this.r(a.oy - sy);
     const f = this.work();
     this.out.push(`${ccw ? 'G3' : 'G2'} X${this.n(ex)} Y${this.n(ey)} I${this.n(i)} J${this.n(j)}${f}`);
     this.x = ex;
