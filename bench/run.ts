@@ -7,6 +7,7 @@ import { cpus } from 'node:os';
 import { execFileSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { benchFit } from './fit.js';
+import { benchRealData } from './realdata.js';
 
 const optional = async (path: string, name: string): Promise<string | null> => {
   try {
@@ -19,6 +20,8 @@ const optional = async (path: string, name: string): Promise<string | null> => {
 
 console.log(`arcspline benchmarks on ${cpus().length} × ${cpus()[0]?.model ?? 'unknown CPU'}, Node ${process.version}\n`);
 console.log(benchFit());
+console.log('');
+console.log(benchRealData());
 console.log('');
 // The pipeline runs in a fresh process so its peak memory is its own.
 const pipeline = fileURLToPath(new URL('./pipeline.ts', import.meta.url));
