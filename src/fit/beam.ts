@@ -263,8 +263,7 @@ function closingMoves(n: Node, p: SearchParams, onTerminal: (t: Node) => void): 
       if (t < end.tMin || t > end.tMax) continue;
       // The run's first vertex is covered by the arc when the touch point lies beyond it.
       const tl = (pts[2 * last] - px) * dx + (pts[2 * last + 1] - py) * dy;
-      const upTo = t >= tl ? last : last - 1;
-      const piece = upTo >= n.a ? makePiece(pts, n.a, upTo, n.bp, n.bq, n.br, n.qx, n.qy, ex, ey, tol) : null;
+      const piece = t >= tl ? makePiece(pts, n.a, last, n.bp, n.bq, n.br, n.qx, n.qy, ex, ey, tol) : filletShort(n, pts, last, ex, ey, tol);
       if (piece) {
         onTerminal(childNode(n, piece, null, last, p));
         break;
@@ -280,6 +279,33 @@ function closingMoves(n: Node, p: SearchParams, onTerminal: (t: Node) => void): 
   const fx = px + tl * dx, fy = py + tl * dy;
   const pair = biarcClosure(pts, n.a, last, n.bp, n.bq, n.br, n.qx, n.qy, n.tx, n.ty, fx, fy, dx, dy, tol);
   if (pair) onTerminal(childNode(n, pair[0], pair[1], last, p));
+}
+
+/**
+ * A fillet from node n touching the run's line at (ex, ey) before the run's
+ * first vertex P_last. It stands for vertices a..last−1 and for the edge
+ * P_{last−1}→P_last up to F, the point of that edge nearest the touch point
+ * (the run's line takes the edge on from there): so it is checked against
+ * P_a … P_{last−1}, F, with F within tol of the touch point. Checking it
+ * against P_{last−1} alone let a fillet cut the corner of that edge.
+ */
+function filletShort(n: Node, pts: Float64Array, last: number, ex: number, ey: number, tol: number): Piece | null {
+  if (last - 1 < n.a) return null;
+  const ax = pts[2 * last - 2], ay = pts[2 * last - 1], bx = pts[2 * last], by = pts[2 * last + 1];
+  const dx = bx - ax, dy = by - ay, l2 = dx * dx + dy * dy;
+  const u = l2 > 0 ? Math.min(1, Math.max(0, ((ex - ax) * dx + (ey - ay) * dy) / l2)) : 0;
+  const fx = ax + u * dx, fy = ay + u * dy;
+  if (len2(ex - fx, ey - fy) > tol) return null;
+  const m = last - n.a;
+  const sub = new Float64Array(2 * m + 2);
+  sub.set(pts.subarray(2 * n.a, 2 * last));
+  sub[2 * m] = fx;
+  sub[2 * m + 1] = fy;
+  const piece = makePiece(sub, 0, m, n.bp, n.bq, n.br, n.qx, n.qy, ex, ey, tol);
+  if (!piece) return null;
+  piece.a = n.a;
+  piece.b = last - 1;
+  return piece;
 }
 
 function collect(end: Node): Piece[] {

@@ -15,6 +15,7 @@ import type { Piece } from './piece.js';
 import { findRuns } from './runs.js';
 import { fitStretches } from './stretches.js';
 import { FIT_ARC_SHARE, FIT_THIN_SHARE } from '../budget.js';
+import { thinnedLines } from './thinLines.js';
 
 export interface FitOptions {
   /** Largest allowed two-sided distance between input and fit (same units as xy, normally mm). */
@@ -105,6 +106,10 @@ export function fitPolyline(xy: Float64Array, opts: FitOptions): FitResult {
   const out = fit.pieces.map((p) => toSegment(p, mc, ox, oy, coarseIdx));
   const breaks = fit.breaks;
   const cornersOut = cornersC.map((j) => coarseIdx[j]);
+  // Never worse than straight moves: where lines through a vertex subset within the same share of the
+  // tolerance need no more pieces (noisy coastlines, coarse grids), they are the fit (proven, and fewer bytes).
+  const lines = thinnedLines(xy, closedIn, FIT_SHARE * tol);
+  if (lines.length > 0 && (out.length === 0 || lines.length <= out.length)) return { segments: lines, corners: lines.map((s) => s.i0), breaks: 0 };
   return { segments: out, corners: cornersOut, breaks };
 }
 

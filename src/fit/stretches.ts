@@ -85,8 +85,7 @@ function fitStretch(pts: Float64Array, last: number, qx: number, qy: number, see
       // No piece at all from here: a straight step to the next vertex (always within tol of both).
       const ex = pts[2 * start + 2], ey = pts[2 * start + 3];
       const l = Math.hypot(ex - qx, ey - qy);
-      const p = l > 0 ? makePiece(pts, start, start + 1, -(ex - qx) / l, -(ey - qy) / l, 0, qx, qy, ex, ey, sp.tol) : null;
-      if (p) all.push(p);
+      if (l > 0) all.push(makePiece(pts, start, start + 1, -(ex - qx) / l, -(ey - qy) / l, 0, qx, qy, ex, ey, sp.tol) ?? rawLine(qx, qy, ex, ey, start));
       start++;
       qx = ex;
       qy = ey;
@@ -94,6 +93,15 @@ function fitStretch(pts: Float64Array, last: number, qx: number, qy: number, see
     if (start >= last) break;
   }
   return { pieces: straightenFlatArcs(pts, mergeNeighbours(pts, all, sp.tol), sp.maxRadius, sp.tol), breaks };
+}
+
+/**
+ * The straight step (qx, qy)–(ex, ey) as a piece without a check: a step the check refuses is still
+ * drawn, so the pieces stay end to end (the contour's measurement then decides).
+ */
+function rawLine(qx: number, qy: number, ex: number, ey: number, a: number): Piece {
+  const dx = ex - qx, dy = ey - qy, l = Math.hypot(dx, dy);
+  return { kind: 'line', ms: 1, mp: -0.5 * dx, mq: -0.5 * dy, mr: 0, x0: qx, y0: qy, x1: ex, y1: ey, a, b: a + 1, tx: dx / l, ty: dy / l };
 }
 
 /** Fit the whole contour. */
