@@ -106,9 +106,10 @@ export function fitPolyline(xy: Float64Array, opts: FitOptions): FitResult {
   const out = fit.pieces.map((p) => toSegment(p, mc, ox, oy, coarseIdx));
   const breaks = fit.breaks;
   const cornersOut = cornersC.map((j) => coarseIdx[j]);
-  // Never worse than straight moves: where lines through a vertex subset within the same share of the
-  // tolerance need no more pieces (noisy coastlines, coarse grids), they are the fit (proven, and fewer bytes).
-  const lines = thinnedLines(xy, closedIn, FIT_SHARE * tol);
+  // Never worse than straight moves: where lines through a vertex subset need no more pieces (noisy
+  // coastlines, coarse grids, tiny islands), they are the fit, and fewer bytes. They are proven within the
+  // tolerance by construction, so they take the whole of it (the spline keeps a margin for its own checks).
+  const lines = thinnedLines(xy, closedIn, tol);
   if (lines.length > 0 && (out.length === 0 || lines.length <= out.length)) return { segments: lines, corners: lines.map((s) => s.i0), breaks: 0 };
   return { segments: out, corners: cornersOut, breaks };
 }
