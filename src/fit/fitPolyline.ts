@@ -36,6 +36,8 @@ export interface FitResult {
   corners: number[];
   /** Places where the search found no tangent-continuous way on and the spline breaks (rare; noisy input). */
   breaks: number;
+  /** What the segments are: the arc spline, or straight moves through a vertex subset (./thinLines.ts) where those need no more pieces. */
+  choice: 'spline' | 'lines';
 }
 
 /** Shares of the tolerance for thinning and for the arcs: src/budget.ts owns the split. */
@@ -53,7 +55,7 @@ export function fitPolyline(xy: Float64Array, opts: FitOptions): FitResult {
   for (let i = 0; i < 2 * n; i++) {
     if (!Number.isFinite(xy[i])) throw new RangeError(`coordinate ${i >> 1} is not finite: ${xy[i]}`);
   }
-  if (n < 2) return { segments: [], corners: [], breaks: 0 };
+  if (n < 2) return { segments: [], corners: [], breaks: 0, choice: 'spline' };
   const tolFit = FIT_SHARE * tol - THIN_SHARE * tol;
   const forcedIdx = opts.corners ? Int32Array.from(opts.corners).filter((k) => k >= 0 && k < n).sort() : null;
 
@@ -71,7 +73,11 @@ export function fitPolyline(xy: Float64Array, opts: FitOptions): FitResult {
     // The walk came back to vertex 0 (or to a copy of it): do not keep it twice.
     while (coarseIdx.length > 1 && xy[2 * coarseIdx[coarseIdx.length - 1]] === xy[0] && xy[2 * coarseIdx[coarseIdx.length - 1] + 1] === xy[1]) coarseIdx.pop();
   }
-  if (coarseIdx.length < 2) return { segments: [], corners: [], breaks: 0 };
+  if (coarseIdx.length < 2) {
+    // Everything within a sliver of the tolerance of one point (a speck): straight moves still draw it.
+    const lines = thinnedLines(xy, closedIn, tol);
+    return { segments: lines, corners: lines.map((s) => s.i0), breaks: 0, choice: 'lines' };
+  }
   // A closed contour of two distinct vertices runs out and back: fit it open, back to its start.
   if (closedIn && coarseIdx.length === 2) coarseIdx.push(coarseIdx[0]);
   const mc = coarseIdx.length;
@@ -110,8 +116,8 @@ export function fitPolyline(xy: Float64Array, opts: FitOptions): FitResult {
   // coastlines, coarse grids, tiny islands), they are the fit, and fewer bytes. They are proven within the
   // tolerance by construction, so they take the whole of it (the spline keeps a margin for its own checks).
   const lines = thinnedLines(xy, closedIn, tol);
-  if (lines.length > 0 && (out.length === 0 || lines.length <= out.length)) return { segments: lines, corners: lines.map((s) => s.i0), breaks: 0 };
-  return { segments: out, corners: cornersOut, breaks };
+  if (lines.length > 0 && (out.length === 0 || lines.length <= out.length)) return { segments: lines, corners: lines.map((s) => s.i0), breaks: 0, choice: 'lines' };
+  return { segments: out, corners: cornersOut, breaks, choice: 'spline' };
 }
 
 function bboxDiagonal(xy: Float64Array): number {
