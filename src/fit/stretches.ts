@@ -10,6 +10,7 @@ import { mergeNeighbours, sameCarrier, straightenFlatArcs } from './merge.js';
 import { openSeeds, seamSeeds } from './seeds.js';
 import { sharpestVertex } from './corners.js';
 import type { Run } from './runs.js';
+import { thinWithin } from './prefilter.js';
 
 export interface StretchFit {
   /** Pieces in order; their a, b are thinned-vertex indices, possibly ≥ mc for a closed contour (take them mod mc). */
@@ -92,7 +93,26 @@ function fitStretch(pts: Float64Array, last: number, qx: number, qy: number, see
     }
     if (start >= last) break;
   }
-  return { pieces: straightenFlatArcs(pts, mergeNeighbours(pts, all, sp.tol), sp.maxRadius, sp.tol), breaks };
+  const pieces = straightenFlatArcs(pts, mergeNeighbours(pts, all, sp.tol), sp.maxRadius, sp.tol);
+  // Free at both ends (corner to corner, or an open end): straight moves where they need no more pieces.
+  if (!seeds && end.kind === 'point' && pieces.length > 1) {
+    const lines = stretchLines(pts, last, sp.tol);
+    if (lines.length <= pieces.length) return { pieces: lines, breaks: 0 };
+  }
+  return { pieces, breaks };
+}
+
+/** Lines through a vertex subset of pts[0..last] within tol of it (./prefilter.ts), as pieces. */
+function stretchLines(pts: Float64Array, last: number, tol: number): Piece[] {
+  const kept = thinWithin(pts, last + 1, false, tol, null);
+  const out: Piece[] = [];
+  for (let j = 0; j + 1 < kept.length; j++) {
+    const a = kept[j], b = kept[j + 1];
+    const p = rawLine(pts[2 * a], pts[2 * a + 1], pts[2 * b], pts[2 * b + 1], a);
+    p.b = b;
+    if (p.x0 !== p.x1 || p.y0 !== p.y1) out.push(p);
+  }
+  return out;
 }
 
 /**
