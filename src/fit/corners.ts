@@ -34,6 +34,15 @@ function turnAt(xy: Float64Array, n: number, closed: boolean, i: number, dist: n
 }
 
 /**
+ * The part of the turn at vertex i concentrated there, radians: 2·turn(L) − turn(2L)
+ * over chords of length L = `scale` (see the header).
+ */
+export function concentratedTurn(xy: Float64Array, closed: boolean, i: number, scale: number): number {
+  const n = xy.length >> 1;
+  return 2 * turnAt(xy, n, closed, i, scale) - turnAt(xy, n, closed, i, 2 * scale);
+}
+
+/**
  * Vertex indices (ascending) that are sharp corners.
  * @param scale the chord length L (mm), a few tolerances
  * @param angle threshold in radians

@@ -10,7 +10,7 @@
  */
 import type { Segment } from './segment.js';
 import { thinWithin } from './prefilter.js';
-import { findCorners } from './corners.js';
+import { concentratedTurn, findCorners } from './corners.js';
 import type { Piece } from './piece.js';
 import { findRuns } from './runs.js';
 import { fitStretches } from './stretches.js';
@@ -24,7 +24,7 @@ export interface FitOptions {
   closed?: boolean;
   /** Turns sharper than this (degrees) stay sharp corners. Default 30. */
   cornerAngle?: number;
-  /** Vertex indices that must stay corners (tangent breaks in the source). */
+  /** Vertex indices where the source has a tangent break; each stays a corner where it turns by cornerAngle or more at the tolerance's scale. */
   corners?: ArrayLike<number>;
   /** Candidates kept per level of the knot search. Default 12. */
   beamWidth?: number;
@@ -93,8 +93,21 @@ export function fitPolyline(xy: Float64Array, opts: FitOptions): FitResult {
 
   // 3. Corners on the thinned polyline, plus the forced ones.
   const cornerSet = new Set<number>(findCorners(cxy, closed, 5 * tolFit, angle));
+  // A tangent break in the source (a join of two curves) stays a corner unless it sits among joins of
+  // pieces shorter than the tolerance's scale (where the source is made of tiny pieces), and there only
+  // where it turns by the corner angle at that scale.
+  const scale = 5 * tolFit;
+  const forcedJ: number[] = [];
   coarseIdx.forEach((c, j) => {
-    if (forced.has(c)) cornerSet.add(j);
+    if (forced.has(c)) forcedJ.push(j);
+  });
+  forcedJ.forEach((j, k) => {
+    const near = (o: number): boolean => {
+      if (forcedJ.length < 2 || (!closed && (o < 0 || o >= forcedJ.length))) return false;
+      const i = forcedJ[(o + forcedJ.length) % forcedJ.length];
+      return i !== j && len(cxy, i, j) < scale;
+    };
+    if (!(near(k - 1) || near(k + 1)) || concentratedTurn(cxy, closed, j, scale) >= angle) cornerSet.add(j);
   });
   const cornersC = [...cornerSet].sort((a, b) => a - b);
 
@@ -118,6 +131,11 @@ export function fitPolyline(xy: Float64Array, opts: FitOptions): FitResult {
   const lines = thinnedLines(xy, closedIn, tol);
   if (lines.length > 0 && (out.length === 0 || lines.length <= out.length)) return { segments: lines, corners: lines.map((s) => s.i0), breaks: 0, choice: 'lines' };
   return { segments: out, corners: cornersOut, breaks, choice: 'spline' };
+}
+
+/** Distance between vertices i and j of flat x,y pairs. */
+function len(xy: Float64Array, i: number, j: number): number {
+  return Math.hypot(xy[2 * i] - xy[2 * j], xy[2 * i + 1] - xy[2 * j + 1]);
 }
 
 function bboxDiagonal(xy: Float64Array): number {

@@ -27,7 +27,10 @@
  * distinct vertices yields nothing (an M alone, or only zero-length pieces).
  * `corners` lists the joins of two source segments whose tangents differ by
  * more than 1°, unless both are straight (line–line joins are the fitter's to
- * judge); the start and end of an open contour are never listed.
+ * judge); the start and end of an open contour are never listed. They are
+ * candidates: the fitter keeps one as a corner unless it sits among joins of
+ * pieces shorter than its tolerance's scale and turns less than its corner
+ * angle there (src/fit/fitPolyline.ts).
  */
 import type { PathData } from '../svg/pathTypes.js';
 import { OP_A, OP_C, OP_L, OP_M, OP_Q, OP_Z } from '../svg/pathTypes.js';

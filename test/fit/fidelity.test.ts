@@ -139,3 +139,38 @@ describe('fitted output stays within the tolerance on real-world kinds of input'
     }
   });
 });
+
+describe('tangent breaks in the source at the tolerance scale', () => {
+  it('200 joins of 0.005–0.05 mm pieces with 2–5° breaks do not become 200 pieces', () => {
+    const next = rng(600);
+    // A circle arc of radius 5 mm drawn as 200 short pieces between points on the circle, each piece bent
+    // at its middle by 1–2.5° alternately out and in, so every join breaks the tangent by 2–5°.
+    const pts: number[] = [5, 0];
+    const corners: number[] = [];
+    let a = 0;
+    for (let p = 0; p < 200; p++) {
+      const l = 0.005 + 0.045 * next(), a1 = a + l / 5;
+      const bend = (((1 + 1.5 * next()) * Math.PI) / 180) * (p % 2 ? 1 : -1);
+      const am = 0.5 * (a + a1), rm = 5 * Math.cos(0.5 * (a1 - a)) + 0.5 * l * Math.tan(bend);
+      pts.push(rm * Math.cos(am), rm * Math.sin(am), 5 * Math.cos(a1), 5 * Math.sin(a1));
+      corners.push(pts.length / 2 - 1);
+      a = a1;
+    }
+    corners.pop();
+    const xy = Float64Array.from(pts);
+    for (const tol of [0.02, 0.05]) {
+      const r = fitPolyline(xy, { tolerance: tol, closed: false, corners });
+      expect(deviationOf(xy, false, r.segments, tol).max).toBeLessThanOrEqual(tol);
+      // About 5.5 mm of a 5 mm radius: one arc, two at most (lines alone need 4 at 0.05 mm, 7 at 0.02 mm).
+      expect(r.segments.length, `tol ${tol}`).toBeLessThanOrEqual(2);
+    }
+  });
+
+  it('a sharp join between long pieces stays a corner', () => {
+    // Two 10 mm lines meeting at 90°, the join listed as a source break: one corner, two lines.
+    const xy = new Float64Array([0, 0, 5, 0, 10, 0, 10, 5, 10, 10]);
+    const r = fitPolyline(xy, { tolerance: 0.05, closed: false, corners: [2] });
+    expect(r.corners).toContain(2);
+    expect(r.segments.length).toBe(2);
+  });
+});
