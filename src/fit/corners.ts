@@ -75,17 +75,3 @@ export function findCorners(xy: Float64Array, closed: boolean, scale: number, an
   }
   return out;
 }
-
-/** The vertex that turns most over chords of the given length (a good seam for a smooth closed contour). */
-export function sharpestVertex(xy: Float64Array, closed: boolean, scale: number): number {
-  const n = xy.length >> 1;
-  let best = 0, bestTurn = -1;
-  for (let i = 0; i < n; i++) {
-    const t = turnAt(xy, n, closed, i, scale);
-    if (t > bestTurn) {
-      bestTurn = t;
-      best = i;
-    }
-  }
-  return best;
-}

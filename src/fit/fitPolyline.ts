@@ -120,7 +120,7 @@ export function fitPolyline(xy: Float64Array, opts: FitOptions): FitResult {
   const extent = bboxDiagonal(cxy);
   const fit = fitStretches({
     cxy, mc, closed, corners: cornersC, runs, tol: tolFit, width,
-    maxRadius: Math.max(20 * extent, 1e4 * tol), scale: 5 * tolFit,
+    maxRadius: Math.max(20 * extent, 1e4 * tol),
   });
   const out = fit.pieces.map((p) => toSegment(p, mc, ox, oy, coarseIdx));
   const breaks = fit.breaks;

@@ -38,22 +38,6 @@ export function mergeNeighbours(pts: Float64Array, pieces: Piece[], tol: number)
   return out;
 }
 
-/** True when two pieces lie on one circle (or one line) with the same orientation. */
-export function sameCarrier(A: Piece, B: Piece, tol: number): boolean {
-  if (A.kind !== B.kind) return false;
-  const eps = 1e-6 * tol;
-  if (A.kind === 'line') {
-    const [ax, ay] = pieceStartTangent(A), [bx, by] = pieceStartTangent(B);
-    if (ax * bx + ay * by <= 0 || Math.abs(ax * by - ay * bx) > TANGENT_EPS) return false;
-    return Math.abs((B.x0 - A.x0) * ay - (B.y0 - A.y0) * ax) <= eps;
-  }
-  const ra = A.mr, rb = B.mr;
-  const acx = -A.mq / ra, acy = A.mp / ra, bcx = -B.mq / rb, bcy = B.mp / rb;
-  const rA = Math.hypot(A.x0 - acx, A.y0 - acy), rB = Math.hypot(B.x0 - bcx, B.y0 - bcy);
-  const sa = -2 * Math.atan2(ra, A.ms), sb = -2 * Math.atan2(rb, B.ms);
-  return sa * sb > 0 && Math.hypot(acx - bcx, acy - bcy) <= eps && Math.abs(rA - rB) <= eps;
-}
-
 /** Largest tangent break (radians) a straightened arc may leave: 1e-4 rad ≈ 0.006°. */
 export const MAX_KINK = 1e-4;
 
