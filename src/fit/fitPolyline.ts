@@ -16,6 +16,7 @@ import { findRuns } from './runs.js';
 import { fitStretches } from './stretches.js';
 import { FIT_ARC_SHARE, FIT_THIN_SHARE } from '../budget.js';
 import { thinnedLines } from './thinLines.js';
+import { startAt } from './pierce.js';
 
 export interface FitOptions {
   /** Largest allowed two-sided distance between input and fit (same units as xy, normally mm). */
@@ -122,7 +123,9 @@ export function fitPolyline(xy: Float64Array, opts: FitOptions): FitResult {
     cxy, mc, closed, corners: cornersC, runs, tol: tolFit, width,
     maxRadius: Math.max(20 * extent, 1e4 * tol),
   });
-  const out = fit.pieces.map((p) => toSegment(p, mc, ox, oy, coarseIdx));
+  const fitted = fit.pieces.map((p) => toSegment(p, mc, ox, oy, coarseIdx));
+  // A closed contour starts where the drawing starts it (the pierce point), as near as its knots allow.
+  const out = closed ? startAt(fitted, xy[0], xy[1]) : fitted;
   const breaks = fit.breaks;
   const cornersOut = cornersC.map((j) => coarseIdx[j]);
   // Never worse than straight moves: where lines through a vertex subset need no more pieces (noisy

@@ -22,6 +22,9 @@ export interface Run {
 const RUN_MIN_LENGTH = RUN_MIN_LENGTH_TOLERANCES;
 const RUN_STRAIGHTNESS = RUN_STRAIGHTNESS_SHARE;
 
+/** How far from its line, as a fraction of the tolerance, a run's outer quarters may go (the thinning's bound, ./prefilter.ts, is 0.05). */
+const RUN_END_SLACK = 0.06;
+
 /** Interior input vertices needed to call a run of several input edges straight. */
 const RUN_MIN_VERTICES = 8;
 /** How much longer than each neighbouring thinned edge a run must be. */
@@ -77,12 +80,15 @@ export function findRuns(clean: Float64Array, m: number, coarse: number[], close
       dy = (clean[2 * l + 1] - fy) / ll;
     }
     const off = (k: number): number => Math.abs((clean[2 * k] - px) * dy - (clean[2 * k + 1] - py) * dx);
-    // Every interior input vertex (walking round the wrap of a closed contour) lies on that line.
+    // Every interior input vertex of the middle half (walking round the wrap of a closed contour) lies on
+    // that line; towards the ends the thinned edge may reach a little way into the bends (up to the
+    // thinning's own bound), where the straight part ends (found below).
     let straight = true, noise = 0;
     for (let s = 1; s < count && straight; s++) {
       const d = off(at(s));
-      if (d > RUN_STRAIGHTNESS * tol) straight = false;
-      if (s >= count / 4 && s <= (3 * count) / 4 && d > noise) noise = d;
+      const middle = s >= count / 4 && s <= (3 * count) / 4;
+      if (d > (middle ? RUN_STRAIGHTNESS : RUN_END_SLACK) * tol) straight = false;
+      if (middle && d > noise) noise = d;
     }
     if (!straight) continue;
     // The straight part ends where the input leaves the line by more than its own noise: walk out from the middle.
