@@ -26,7 +26,7 @@ console.log('');
 // The pipeline runs in a fresh process so its peak memory is its own.
 const pipeline = fileURLToPath(new URL('./pipeline.ts', import.meta.url));
 console.log(execFileSync(process.execPath, ['--import', 'tsx', pipeline], { encoding: 'utf8', maxBuffer: 1 << 24 }).trimEnd());
-for (const [path, name] of [['./measure.js', 'benchMeasure'], ['./batch.js', 'benchBatch'], ['./machine.js', 'benchMachine'], ['./styles.js', 'benchStyles'], ['./plan.js', 'benchPlan']] as const) {
+for (const [path, name] of [['./measure.js', 'benchMeasure'], ['./batch.js', 'benchBatch'], ['./machine.js', 'benchMachine'], ['./styles.js', 'benchStyles'], ['./plan.js', 'benchPlan'], ['./endToEnd.js', 'benchEndToEnd']] as const) {
   const out = await optional(path, name);
   if (out) console.log(`\n${out}`);
 }
