@@ -23,7 +23,9 @@
  * - fit: the rest goes to the fitter (src/fit/fitPolyline.ts), which spends
  *   FIT_THIN_SHARE of it on thinning its input and fits the arcs within
  *   FIT_ARC_SHARE − FIT_THIN_SHARE of it; the remaining 3 % is margin for
- *   floating-point rounding in its own checks.
+ *   floating-point rounding in its own checks. Where the thinning dropped no
+ *   vertex the arcs take FIT_ARC_SHARE whole; straight moves through input
+ *   vertices (the never-worse alternative) take FIT_LINES_SHARE.
  *
  * When fixed digits leave the fit less than MIN_FIT_SHARE of the tolerance, the
  * element is not refitted (reason 'too-few-digits'): a fit squeezed that thin
@@ -51,6 +53,12 @@ export const FIT_THIN_SHARE = 0.05;
  * 1e-9) and is the most that does; 0.99 let the ellipse's count change under a rigid motion.
  */
 export const FIT_ARC_SHARE = 0.97;
+/**
+ * Share of the fit's own budget the straight-move alternative to the arcs (src/fit/thinLines.ts) uses: it is
+ * proven within it, so all of it but the independent measurement's own overestimate (at most 0.5 % of the
+ * tolerance, src/measure/measure.ts), which must not take a proven fit over.
+ */
+export const FIT_LINES_SHARE = 0.995;
 /** Straight runs: input vertices lie this close to the run's line, as a share of the fit's budget. */
 export const RUN_STRAIGHTNESS_SHARE = 0.02;
 /** Straight runs: shortest run, in fit budgets (a length, not an error: no share of the sum above). */

@@ -14,7 +14,7 @@ import { concentratedTurn, findCorners } from './corners.js';
 import type { Piece } from './piece.js';
 import { findRuns } from './runs.js';
 import { fitStretches } from './stretches.js';
-import { FIT_ARC_SHARE, FIT_THIN_SHARE } from '../budget.js';
+import { FIT_ARC_SHARE, FIT_LINES_SHARE, FIT_THIN_SHARE } from '../budget.js';
 import { thinnedLines } from './thinLines.js';
 import { startAt } from './pierce.js';
 
@@ -44,6 +44,8 @@ export interface FitResult {
 /** Shares of the tolerance for thinning and for the arcs: src/budget.ts owns the split. */
 const THIN_SHARE = FIT_THIN_SHARE;
 const FIT_SHARE = FIT_ARC_SHARE;
+/** Share of the tolerance the straight-move alternative (./thinLines.ts) uses (src/budget.ts). */
+export const LINES_SHARE = FIT_LINES_SHARE;
 
 /** Fit `xy` (flat x,y pairs) with arcs and lines. */
 export function fitPolyline(xy: Float64Array, opts: FitOptions): FitResult {
@@ -57,7 +59,6 @@ export function fitPolyline(xy: Float64Array, opts: FitOptions): FitResult {
     if (!Number.isFinite(xy[i])) throw new RangeError(`coordinate ${i >> 1} is not finite: ${xy[i]}`);
   }
   if (n < 2) return { segments: [], corners: [], breaks: 0, choice: 'spline' };
-  const tolFit = FIT_SHARE * tol - THIN_SHARE * tol;
   const forcedIdx = opts.corners ? Int32Array.from(opts.corners).filter((k) => k >= 0 && k < n).sort() : null;
 
   // 1. Thin the input within a small share of the tolerance (closed: walk round and back to vertex 0);
@@ -76,12 +77,18 @@ export function fitPolyline(xy: Float64Array, opts: FitOptions): FitResult {
   }
   if (coarseIdx.length < 2) {
     // Everything within a sliver of the tolerance of one point (a speck): straight moves still draw it.
-    const lines = thinnedLines(xy, closedIn, tol);
+    const lines = thinnedLines(xy, closedIn, LINES_SHARE * tol);
     return { segments: lines, corners: lines.map((s) => s.i0), breaks: 0, choice: 'lines' };
   }
   // A closed contour of two distinct vertices runs out and back: fit it open, back to its start.
   if (closedIn && coarseIdx.length === 2) coarseIdx.push(coarseIdx[0]);
   const mc = coarseIdx.length;
+  // The arcs get the fit's share less what the thinning may have cost: nothing when it dropped no vertex
+  // but exact repeats (a coarse polyline, a grid-snapped font), where the thinned polyline is the input.
+  let distinct = n > 0 ? 1 : 0;
+  for (let i = 1; i < n; i++) if (xy[2 * i] !== xy[2 * i - 2] || xy[2 * i + 1] !== xy[2 * i - 1]) distinct++;
+  if (closedIn && n > 1 && xy[2 * n - 2] === xy[0] && xy[2 * n - 1] === xy[1]) distinct--;
+  const tolFit = (mc >= distinct ? FIT_SHARE : FIT_SHARE - THIN_SHARE) * tol;
   const closed = closedIn && mc >= 3 && coarseIdx[mc - 1] !== coarseIdx[0];
   // The fitter works in a local frame at the first vertex (keeps precision far from the origin).
   const ox = xy[0], oy = xy[1];
@@ -130,8 +137,8 @@ export function fitPolyline(xy: Float64Array, opts: FitOptions): FitResult {
   const cornersOut = cornersC.map((j) => coarseIdx[j]);
   // Never worse than straight moves: where lines through a vertex subset need no more pieces (noisy
   // coastlines, coarse grids, tiny islands), they are the fit, and fewer bytes. They are proven within the
-  // tolerance by construction, so they take the whole of it (the spline keeps a margin for its own checks).
-  const lines = thinnedLines(xy, closedIn, tol);
+  // tolerance by construction, so they take nearly all of it (the spline keeps a margin for its own checks).
+  const lines = thinnedLines(xy, closedIn, LINES_SHARE * tol);
   if (lines.length > 0 && (out.length === 0 || lines.length <= out.length)) return { segments: lines, corners: lines.map((s) => s.i0), breaks: 0, choice: 'lines' };
   return { segments: out, corners: cornersOut, breaks, choice: 'spline' };
 }

@@ -7,6 +7,7 @@
 import { describe, expect, it } from 'vitest';
 import { fitContour } from '../../src/fit/fitContour.js';
 import { thinWithin } from '../../src/fit/prefilter.js';
+import { LINES_SHARE } from '../../src/fit/fitPolyline.js';
 import { circle, rng, roundedRect } from './shapes.js';
 import { deviationOf } from './measure.js';
 
@@ -36,7 +37,7 @@ describe('fitContour', () => {
       xy[2 * i + 1] = (i % 2) * 0.2 + 0.05 * next();
     }
     const r = fitContour(xy, { tolerance: 0.05, closed: false });
-    expect(r.pieces).toBeLessThanOrEqual(thinWithin(xy, 200, false, 0.05, null).length - 1);
+    expect(r.pieces).toBeLessThanOrEqual(thinWithin(xy, 200, false, LINES_SHARE * 0.05, null).length - 1);
     expect(r.choice).toBe('lines');
     expect(deviationOf(xy, false, r.segments!, 0.05).max).toBeLessThanOrEqual(0.05);
   });
@@ -55,7 +56,7 @@ describe('fitContour', () => {
       }
       const original = Math.floor(n * next()) + 1;
       const r = fitContour(xy, { tolerance: tol, closed: true, originalPieces: original });
-      expect(r.pieces, `seed ${seed}`).toBeLessThanOrEqual(Math.min(n, original, thinWithin(xy, n, true, tol, null).length - 1));
+      expect(r.pieces, `seed ${seed}`).toBeLessThanOrEqual(Math.min(n, original, thinWithin(xy, n, true, LINES_SHARE * tol, null).length - 1));
       if (r.segments) expect(deviationOf(xy, true, r.segments, tol).max, `seed ${seed}`).toBeLessThanOrEqual(tol);
     }
   });

@@ -10,7 +10,7 @@ import { realCorpus } from './corpus.js';
 import { readSvg } from '../../src/svg/document.js';
 import { parsePathData } from '../../src/svg/pathData.js';
 import { flattenPath } from '../../src/geom/flatten.js';
-import { fitPolyline } from '../../src/fit/fitPolyline.js';
+import { fitPolyline, LINES_SHARE } from '../../src/fit/fitPolyline.js';
 import { thinWithin } from '../../src/fit/prefilter.js';
 import { polylineDeviation } from '../../src/report/polylineDeviation.js';
 
@@ -27,7 +27,7 @@ describe('real map contours', () => {
             const r = fitPolyline(c.xy, { tolerance: tol, closed: c.closed, corners: c.corners });
             expect(r.segments.length, what).toBeGreaterThan(0);
             expect(polylineDeviation(c.xy, c.closed, r.segments, tol).max, what).toBeLessThanOrEqual(tol);
-            expect(r.segments.length, what).toBeLessThanOrEqual(thinWithin(c.xy, c.xy.length >> 1, c.closed, tol, null).length - 1);
+            expect(r.segments.length, what).toBeLessThanOrEqual(thinWithin(c.xy, c.xy.length >> 1, c.closed, LINES_SHARE * tol, null).length - 1);
           }
         }
       }
