@@ -61,6 +61,8 @@ export const FIT_ARC_SHARE = 0.97;
 export const FIT_LINES_SHARE = 0.995;
 /** Straight runs: input vertices lie this close to the run's line, as a share of the fit's budget. */
 export const RUN_STRAIGHTNESS_SHARE = 0.02;
+/** Straight runs: towards their ends (outer quarters) input vertices may reach into the bends by the thinning's share, and a little. */
+export const RUN_END_SLACK_SHARE = 1.2 * FIT_THIN_SHARE;
 /** Straight runs: shortest run, in fit budgets (a length, not an error: no share of the sum above). */
 export const RUN_MIN_LENGTH_TOLERANCES = 4;
 

@@ -3,7 +3,7 @@
  * (./fitPolyline.ts), straight moves through a vertex subset within the
  * tolerance (./thinLines.ts) and the contour's own original pieces, each
  * allowed only within the tolerance. The spline is measured independently
- * (src/report/polylineDeviation.ts: written out, read back, Hausdorff bound)
+ * (src/measure/polylineDeviation.ts: written out, read back, Hausdorff bound)
  * and dropped if over; the straight moves are within the tolerance by
  * construction; the original is the input itself. Ties go to the original
  * (nothing changes), then to the lines (fewer bytes than arcs).
@@ -11,7 +11,7 @@
 import { fitPolyline, type FitOptions } from './fitPolyline.js';
 import { thinnedLines } from './thinLines.js';
 import type { Segment } from './segment.js';
-import { polylineDeviation } from '../report/polylineDeviation.js';
+import { polylineDeviation } from '../measure/polylineDeviation.js';
 
 /** Which of the three a contour came out as. */
 export type ContourChoice = 'spline' | 'lines' | 'original';

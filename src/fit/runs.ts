@@ -5,7 +5,7 @@
  * curved stretches between them are fitted to meet them tangentially, so a
  * rounded rectangle comes back as four lines and four arcs.
  */
-import { RUN_MIN_LENGTH_TOLERANCES, RUN_STRAIGHTNESS_SHARE } from '../budget.js';
+import { RUN_END_SLACK_SHARE, RUN_MIN_LENGTH_TOLERANCES, RUN_STRAIGHTNESS_SHARE } from '../budget.js';
 
 /** A straight run on the thinned edge j → j+1: the line through (px, py) with unit direction (dx, dy). */
 export interface Run {
@@ -21,9 +21,8 @@ export interface Run {
 /** Shortest run, in tolerances; how straight a run's input vertices lie, as a fraction of the tolerance (src/budget.ts). */
 const RUN_MIN_LENGTH = RUN_MIN_LENGTH_TOLERANCES;
 const RUN_STRAIGHTNESS = RUN_STRAIGHTNESS_SHARE;
-
-/** How far from its line, as a fraction of the tolerance, a run's outer quarters may go (the thinning's bound, ./prefilter.ts, is 0.05). */
-const RUN_END_SLACK = 0.06;
+/** How far a run's outer quarters may stray from its line, as a fraction of the tolerance (src/budget.ts). */
+const RUN_END_SLACK = RUN_END_SLACK_SHARE;
 
 /** Interior input vertices needed to call a run of several input edges straight. */
 const RUN_MIN_VERTICES = 8;

@@ -6,7 +6,7 @@
  * be the whole circle as two arcs (SVG cannot draw a full turn in one arc,
  * SVG 2 §9.5 F.6.2) on that circle: radius and centre within 0.1·tolerance +
  * the sagitta, starting at the contour's first vertex. Measurements by the
- * independent check (src/report/polylineDeviation.ts). Shapes are our own
+ * independent check (src/measure/polylineDeviation.ts). Shapes are our own
  * test data, seeded.
  */
 import { describe, expect, it } from 'vitest';

@@ -3,7 +3,7 @@
  * bring (issue 10): noisy and grid-snapped polylines, tiny islands, U-turns,
  * near-semicircles and float noise in the scale. Each asserts the fitter's own
  * output is within its tolerance by the independent measurement
- * (src/report/polylineDeviation.ts), and that a lines-only input never comes
+ * (src/measure/polylineDeviation.ts), and that a lines-only input never comes
  * out with more pieces than it went in with, nor more than a lines-only
  * thinning at the same tolerance (src/fit/prefilter.ts; less the measurement's
  * own overestimate, LINES_SHARE). Shapes are our own

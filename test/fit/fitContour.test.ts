@@ -1,7 +1,7 @@
 /**
  * The per-contour choice: the spline, straight moves or the original pieces,
  * whichever is cheapest within the tolerance, checked by the independent
- * measurement (src/report/polylineDeviation.ts). Shapes are our own test data
+ * measurement (src/measure/polylineDeviation.ts). Shapes are our own test data
  * (./shapes.ts, seeded).
  */
 import { describe, expect, it } from 'vitest';

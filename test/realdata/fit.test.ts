@@ -2,7 +2,7 @@
  * The fitter on real map data (Natural Earth through world-atlas; see
  * ./README.md): every contour comes back drawn (no contour vanishes), within
  * its own tolerance by the independent measurement
- * (src/report/polylineDeviation.ts), and with no more pieces than a lines-only
+ * (src/measure/polylineDeviation.ts), and with no more pieces than a lines-only
  * thinning (src/fit/prefilter.ts) at that tolerance.
  */
 import { describe, expect, it } from 'vitest';
@@ -12,7 +12,7 @@ import { parsePathData } from '../../src/svg/pathData.js';
 import { flattenPath } from '../../src/geom/flatten.js';
 import { fitPolyline, LINES_SHARE } from '../../src/fit/fitPolyline.js';
 import { thinWithin } from '../../src/fit/prefilter.js';
-import { polylineDeviation } from '../../src/report/polylineDeviation.js';
+import { polylineDeviation } from '../../src/measure/polylineDeviation.js';
 
 describe('real map contours', () => {
   const maps = realCorpus().filter((d) => d.cls === 'maps');
