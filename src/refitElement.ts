@@ -118,9 +118,14 @@ export function refitElement(
   times.flatten += now() - t;
   if (!('contours' in model)) return unchanged(model.reason, model.message);
   t = now();
-  const fitted = fitElement(model, opts.cornerAngle);
+  const fitted = fitElement(model, opts.cornerAngle, !opts.bakeTransforms);
   times.fit += now() - t;
   for (const c of fitted.contours) report.straightMovesNeeded += c.straightMovesNeeded;
+  // Every contour keeps its source (none is shorter refitted, or none could be fitted): leave the element
+  // as written, byte for byte, so a refit of a refit changes nothing there.
+  if (fitted.contours.length > 0 && fitted.contours.every((c) => c.choice === 'original')) {
+    return unchanged('no-shorter', 'already no longer than a refit', fitted);
+  }
   t = now();
   const { d, stats } = svgPathData(fitted, mmToLocal, model.budget.digits);
   times.write += now() - t;

@@ -40,7 +40,7 @@ describe('counts of what was written', () => {
     const line = { x0: 0, y0: 0, x1: 1, y1: 0, motor: new Float64Array([1, 0, 0, 0]), i0: 0, i1: 1 };
     const fitted = (closed: boolean): FittedElement => ({
       element: null as unknown as FittedElement['element'],
-      contours: [{ contour: { xy: new Float64Array(0), closed }, segments: [line as never], straightMovesNeeded: 1, outcome: { status: 'refitted', reason: null } }],
+      contours: [{ contour: { xy: new Float64Array(0), closed }, choice: 'spline', segments: [line as never], straightMovesNeeded: 1, outcome: { status: 'refitted', reason: null } }],
     });
     expect(closingLines(fitted(true))).toBe(1);
     expect(closingLines(fitted(false))).toBe(0);

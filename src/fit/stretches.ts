@@ -5,7 +5,9 @@
  * stretch round from a seam back to itself.
  */
 import { endAt, searchSpline, type SearchEnd } from './beam.js';
-import { makePiece, type Piece } from './piece.js';
+import { makePiece, pieceStartTangent, type Piece } from './piece.js';
+import { TANGENT_EPS } from './closure.js';
+import { kasaCircle } from './circleFit.js';
 import { mergeNeighbours, straightenFlatArcs } from './merge.js';
 import { openSeeds, seamSeeds } from './seeds.js';
 import type { Run } from './runs.js';
@@ -209,14 +211,67 @@ function runLine(r: Run, e: number, qx: number, qy: number, prev: Piece | null, 
 /** A smooth closed contour: one stretch from a seam round to itself, closing with the seam's tangent. */
 function fitSeam(sp: StretchParams): StretchFit {
   const { cxy, mc } = sp;
-  const run = (seam: number): StretchFit => {
-    const pts = slice(cxy, mc, seam, seam + mc);
-    const fit = fitStretch(pts, mc, pts[0], pts[1], null, endAt('seam'), sp);
-    shift(fit.pieces, seam);
-    return fit;
-  };
   // The seam is the contour's own start: a closed cut starts where the drawing starts it (the pierce
   // point). Measured on the corpus (bench/realdata.ts) and the standard curves, a seam at the vertex that
   // turns most saved no pieces worth moving the start for.
-  return run(0);
+  const pts = slice(cxy, mc, 0, mc);
+  const fit = fitStretch(pts, mc, pts[0], pts[1], null, endAt('seam'), sp);
+  const halves = fit.pieces.length === 2 ? halveCircle(pts, mc, fit.pieces, sp.tol) : null;
+  return halves ? { pieces: halves, breaks: fit.breaks } : fit;
+}
+
+/**
+ * A whole circle fitted as two arcs from the seam (one nearly all the way round, one a sliver) becomes
+ * two half turns: the sliver is no feature of the input, and a near-full arc is the worst conditioned to
+ * write (its ends almost meet). Both halves are rotor steps (./piece.ts) from the seam's own tangent,
+ * through the point opposite the seam, so the tangent stays continuous; null when the pieces are not
+ * one circle or a half does not fit.
+ */
+function halveCircle(pts: Float64Array, last: number, pieces: Piece[], tol: number): Piece[] | null {
+  const [A, B] = pieces;
+  if (A.kind !== 'arc' || B.kind !== 'arc') return null;
+  const ax = -A.mq / A.mr, ay = A.mp / A.mr, bx = -B.mq / B.mr, by = B.mp / B.mr;
+  const r = Math.hypot(A.x0 - ax, A.y0 - ay);
+  if (!(Math.hypot(ax - bx, ay - by) <= 1e-9 * r && Math.abs(Math.hypot(B.x0 - bx, B.y0 - by) - r) <= 1e-9 * r)) return null;
+  // The circle of all the vertices (an algebraic fit, ./circleFit.ts): the arcs through knots at vertices
+  // take the circle of those vertices, noise and all; the fit takes all of them. Start at the seam's
+  // foot on it, with the same turning sense; the spline's own circle where that does not fit.
+  const c = kasaCircle(pts, last);
+  if (c) {
+    const onFit = halvesOn(pts, last, c.cx, c.cy, c.r, A, tol);
+    if (onFit) return onFit;
+  }
+  return halvesOn(pts, last, ax, ay, r, A, tol);
+}
+
+/** Two half-turn arcs on the circle (cx, cy, r), from the seam's foot on it round to it again. */
+function halvesOn(pts: Float64Array, last: number, cx: number, cy: number, r: number, A: Piece, tol: number): Piece[] | null {
+  const ux = pts[0] - cx, uy = pts[1] - cy, ul = Math.hypot(ux, uy);
+  if (!(ul > 0)) return null;
+  const sx = cx + (r * ux) / ul, sy = cy + (r * uy) / ul;
+  if (Math.hypot(sx - pts[0], sy - pts[1]) > tol) return null;
+  // The turning sense of the fitted arcs: A's tangent against its radius.
+  const [t0x, t0y] = pieceStartTangent(A);
+  const sg = Math.sign(ux * t0y - uy * t0x) || 1;
+  const tx = (-sg * uy) / ul, ty = (sg * ux) / ul;
+  const jx = 2 * cx - sx, jy = 2 * cy - sy;
+  let split = 0, best = Infinity;
+  for (let k = 0; k <= last; k++) {
+    const d = (pts[2 * k] - jx) ** 2 + (pts[2 * k + 1] - jy) ** 2;
+    if (d < best) {
+      best = d;
+      split = k;
+    }
+  }
+  // The vertex ranges meet at the vertex nearest the junction, or one either side of it (the junction
+  // lies between two vertices; either range may hold the one next to it).
+  for (const k of [split, split - 1, split + 1]) {
+    if (k <= 0 || k >= last) continue;
+    const first = makePiece(pts, 0, k, -tx, -ty, 0, sx, sy, jx, jy, tol);
+    const second = first ? makePiece(pts, k, last, first.mp, first.mq, first.mr, jx, jy, sx, sy, tol) : null;
+    if (!first || !second || first.kind !== 'arc' || second.kind !== 'arc') continue;
+    if (second.tx * tx + second.ty * ty <= 0 || Math.abs(second.tx * ty - second.ty * tx) > TANGENT_EPS) continue;
+    return [first, second];
+  }
+  return null;
 }

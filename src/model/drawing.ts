@@ -9,6 +9,8 @@
  */
 import type { Segment } from '../fit/segment.js';
 import type { Matrix } from '../svg/matrixTypes.js';
+import type { ContourChoice } from '../fit/fitContour.js';
+import type { PathData } from '../svg/pathTypes.js';
 import type { ToleranceSplit } from '../budget.js';
 import type { OutcomeReason, OutcomeStatus } from '../report/types.js';
 
@@ -36,6 +38,12 @@ export interface DrawingContour {
   closed: boolean;
   /** Vertex indices that are tangent breaks in the source (sharp corners); absent when none are known. */
   corners?: Uint32Array;
+  /**
+   * The source subpath this contour was flattened from, in the element's own user units (absolute path
+   * data starting with its moveto), and the pieces it draws (a closing Z that draws a line counted); absent
+   * when not known. A contour that cannot be fitted, or whose fit has no fewer pieces, is kept as this.
+   */
+  source?: { path: PathData; pieces: number };
 }
 
 /** One source element as the model sees it. */
@@ -73,6 +81,8 @@ export interface ContourOutcome {
 /** A contour with the arcs and lines fitted to it (mm, end to end), and its outcome. */
 export interface FittedContour {
   contour: DrawingContour;
+  /** What it is written as: the arc spline, straight moves, or its source subpath as written (`segments` empty). */
+  choice: ContourChoice;
   segments: Segment[];
   /** Straight moves a controller needs to follow the contour within the element's tolerance. */
   straightMovesNeeded: number;

@@ -2,10 +2,11 @@
  * Fit every contour of a drawing-model element with arcs and lines, within the
  * fitting share of its budget.
  */
-import { fitPolyline } from '../fit/fitPolyline.js';
+import { fitContour } from '../fit/fitContour.js';
+import { OP_C, OP_Q, type PathData } from '../svg/pathTypes.js';
 import { thinWithin } from '../fit/prefilter.js';
 import type { OutcomeReason, OutcomeStatus } from '../report/types.js';
-import type { DrawingContour, DrawingElement, FittedElement } from './drawing.js';
+import type { DrawingContour, DrawingElement, FittedContour, FittedElement } from './drawing.js';
 
 /** Lines a controller needs to follow the contour within the tolerance (vertex-subset polyline; a closing line counts). */
 export function straightMoves(c: DrawingContour, tolMm: number): number {
@@ -14,18 +15,38 @@ export function straightMoves(c: DrawingContour, tolMm: number): number {
   return thinWithin(c.xy, n, c.closed, tolMm, null).length - 1;
 }
 
+/** True when path data has Bézier segments. */
+function hasBeziers(p: PathData): boolean {
+  for (let i = 0; i < p.ops.length; i++) if (p.ops[i] === OP_C || p.ops[i] === OP_Q) return true;
+  return false;
+}
+
 /**
- * Fit an element's contours.
+ * Fit an element's contours, each on its own: a contour that cannot be fitted within the tolerance, or
+ * (drawn by lines and arcs) whose fit has no fewer pieces than its source, keeps its source subpath
+ * (`choice` 'original'); the rest of the element is still refitted.
  * @param cornerAngle turns sharper than this (degrees) stay sharp corners
+ * @param keepSources whether a contour may keep its source subpath: only for a writer that writes the
+ *   source's own path data in the source's own coordinates (the SVG writer without baked transforms)
  * @returns the contours with their segments, each marked refitted until a check says otherwise
  */
-export function fitElement(el: DrawingElement, cornerAngle: number): FittedElement {
-  const contours = el.contours.map((c) => ({
-    contour: c,
-    segments: fitPolyline(c.xy, { tolerance: el.budget.fitMm, closed: c.closed, cornerAngle, corners: c.corners }).segments,
-    straightMovesNeeded: straightMoves(c, el.toleranceMm),
-    outcome: { status: 'refitted' as OutcomeStatus, reason: null as OutcomeReason | null },
-  }));
+export function fitElement(el: DrawingElement, cornerAngle: number, keepSources = false): FittedElement {
+  const contours = el.contours.map((c): FittedContour => {
+    // Per contour, the cheapest of the spline, straight moves and its source pieces (src/fit/fitContour.ts)
+    // when the source is lines and arcs, exact geometry an arc-capable machine takes as it is. A source
+    // with Béziers is refitted (a machine cannot take those), and keeps its source only if no fit is within
+    // the tolerance.
+    const source = keepSources ? c.source : undefined;
+    const exact = source !== undefined && !hasBeziers(source.path);
+    const tol = el.budget.fitMm;
+    const f = fitContour(c.xy, { tolerance: tol, closed: c.closed, cornerAngle, corners: c.corners, originalPieces: exact ? source.pieces : null });
+    const kept = f.choice === 'original' || (source !== undefined && !(f.deviation <= tol));
+    return {
+      contour: c, choice: kept ? 'original' : f.choice, segments: kept ? [] : f.segments ?? [],
+      straightMovesNeeded: straightMoves(c, el.toleranceMm),
+      outcome: kept ? { status: 'kept', reason: 'no-shorter' } : { status: 'refitted', reason: null },
+    };
+  });
   return { element: el, contours };
 }
 

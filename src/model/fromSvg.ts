@@ -6,12 +6,12 @@ import type { GeometryElement } from '../svg/document.js';
 import { parsePathData } from '../svg/pathData.js';
 import { shapeToPath } from '../svg/shapes.js';
 import { applyX, applyY, invert, multiply } from '../svg/matrix.js';
-import { OP_A, OP_ARGS, OP_C, OP_M, OP_Q, type ParsedPath, type PathData } from '../svg/pathTypes.js';
+import { OP_A, OP_ARGS, OP_C, OP_M, OP_Q, OP_Z, type ParsedPath, type PathData } from '../svg/pathTypes.js';
 import { flattenPath } from '../geom/flatten.js';
 import { splitTolerance } from '../budget.js';
 import { elementTag } from '../report/table.js';
 import type { OutcomeReason } from '../report/types.js';
-import type { DrawingCopy, DrawingElement } from './drawing.js';
+import type { DrawingContour, DrawingCopy, DrawingElement } from './drawing.js';
 import { resolveStyle } from './style.js';
 
 /** Parse an element's geometry as path data (shapes through their equivalent path); problems go to `warnings`. */
@@ -69,6 +69,55 @@ function copiesOf(el: GeometryElement): DrawingCopy[] {
   return el.copies.map((c) => ({ map: multiply(new Float64Array(6), c.toMm, back), style: resolveStyle(el, c.style) }));
 }
 
+/** Pieces a subpath draws: every segment, and a Z when it draws a closing line (its current point is not the start). */
+function drawnPieces(p: PathData): number {
+  let n = 0, j = 0, sx = 0, sy = 0, cx = 0, cy = 0;
+  for (let i = 0; i < p.ops.length; i++) {
+    const op = p.ops[i], k = OP_ARGS[op];
+    if (op === OP_M) {
+      sx = cx = p.args[j];
+      sy = cy = p.args[j + 1];
+    } else if (op === OP_Z) {
+      if (cx !== sx || cy !== sy) n++;
+      cx = sx;
+      cy = sy;
+    } else {
+      n++;
+      cx = p.args[j + k - 2];
+      cy = p.args[j + k - 1];
+    }
+    j += k;
+  }
+  return n;
+}
+
+/**
+ * Flatten path data one subpath (moveto to moveto) at a time, so each contour knows the subpath it came
+ * from (DrawingContour.source); a stretch that makes more than one contour (drawing on after a Z without a
+ * moveto) has no source.
+ */
+function flattenWithSources(p: PathData, toMm: Float64Array, maxError: number): DrawingContour[] {
+  const out: DrawingContour[] = [];
+  let i0 = 0, j0 = 0, j = 0;
+  const flush = (i1: number): void => {
+    if (i1 <= i0) return;
+    const path: PathData = { ops: p.ops.subarray(i0, i1), args: p.args.subarray(j0, j) };
+    const cs: DrawingContour[] = flattenPath(path, toMm, maxError);
+    if (cs.length === 1 && path.ops[0] === OP_M) cs[0].source = { path, pieces: drawnPieces(path) };
+    out.push(...cs);
+  };
+  for (let i = 0; i < p.ops.length; i++) {
+    if (p.ops[i] === OP_M && i > i0) {
+      flush(i);
+      i0 = i;
+      j0 = j;
+    }
+    j += OP_ARGS[p.ops[i]];
+  }
+  flush(p.ops.length);
+  return out;
+}
+
 /** Why an element cannot enter the model: a reason code and a message for people. */
 export interface NotModelled {
   reason: OutcomeReason;
@@ -88,9 +137,9 @@ export function drawingElementFromSvg(
   const curved = hasCurves(p);
   const budget = splitTolerance(tolMm, { curved, mmPerUnit: writtenMmPerUnit, digits });
   if (!budget.fits) return { reason: 'too-few-digits', message: `too few decimals (${budget.digits}) for the tolerance` };
-  let contours;
+  let contours: DrawingContour[];
   try {
-    contours = flattenPath(p, el.toMm, curved ? budget.flattenMm : tolMm);
+    contours = flattenWithSources(p, el.toMm, curved ? budget.flattenMm : tolMm);
   } catch (e) {
     return { reason: 'cannot-flatten', message: `cannot flatten: ${(e as Error).message}` };
   }

@@ -148,6 +148,27 @@ export class PathWriter implements PathSink {
   }
 
   /**
+   * Write one segment of source path data as it was read: absolute, every number exactly as the double
+   * holds it (shortest round-trip form), so a kept source subpath draws exactly what it drew.
+   * @param letter 'M', 'L', 'C', 'Q' or 'A' (arc flags as 0/1)
+   * @param nums the segment's absolute arguments (pathTypes.ts order); the last two are its end point
+   */
+  exact(letter: 'M' | 'L' | 'C' | 'Q' | 'A', nums: ArrayLike<number>): void {
+    const t = Array.from(nums, (v) => String(v === 0 ? 0 : v));
+    // A letter is always written, numbers set apart by spaces (arc flags too, see the header).
+    this.parts.push(letter + t.join(' '));
+    this.lastCmd = letter;
+    this.lastNum = t[t.length - 1];
+    this.cx = nums[nums.length - 2];
+    this.cy = nums[nums.length - 1];
+    if (letter === 'M') {
+      this.sx = this.cx;
+      this.sy = this.cy;
+    }
+    this.started = true;
+  }
+
+  /**
    * Radii are written as |rx|, |ry| (readers take absolute values, F.6.6 step 2);
    * the rotation is reduced to [0°, 180°) (an ellipse turned by 180° is the same
    * ellipse, so the arc is unchanged) and written as 0 when the written radii

@@ -139,7 +139,9 @@ describe('round trip on our own scenarios at 0.05 mm', () => {
       it('rewrites its elements within the tolerance', () => {
         const { totals, elements } = res.report;
         expect(elements.filter((e) => e.keptReason?.startsWith('measured')).map((e) => e.keptReason)).toEqual([]);
-        expect(totals.rewritten).toBe(totals.elements);
+        // Every element is rewritten, or kept because its lines and arcs are already no more than a refit needs.
+        expect(elements.filter((e) => e.status !== 'refitted' && e.reason !== 'no-shorter').map((e) => e.id)).toEqual([]);
+        expect(totals.rewritten).toBeGreaterThan(0);
         expect(totals.withinTolerance).toBe(true);
         expect(totals.maxDeviation).toBeLessThanOrEqual(TOLERANCE);
         expect(totals.segmentsAfter.arcs).toBeGreaterThan(0);

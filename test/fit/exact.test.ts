@@ -59,7 +59,8 @@ describe('exact shapes come back exact', () => {
         expect(Math.abs(g!.r - r), what).toBeLessThanOrEqual(0.1 * tol + sag);
         expect(Math.hypot(g!.cx - cx, g!.cy - cy), what).toBeLessThanOrEqual(0.1 * tol + sag);
       }
-      expect([f.segments[0].x0, f.segments[0].y0], what).toEqual([xy[0], xy[1]]);
+      // The pierce point stays (to rounding: the arcs start at the first vertex's foot on the fitted circle).
+      expect(Math.hypot(f.segments[0].x0 - xy[0], f.segments[0].y0 - xy[1]), what).toBeLessThanOrEqual(1e-9 * (1 + r));
       expect(deviationOf(xy, true, f.segments, tol).max, what).toBeLessThanOrEqual(tol);
     }
   });
