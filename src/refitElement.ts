@@ -117,39 +117,45 @@ export function refitElement(
   const model = drawingElementFromSvg(el, p, tol, maxScale(writtenToMm), opts.digits);
   times.flatten += now() - t;
   if (!('contours' in model)) return unchanged(model.reason, model.message);
-  t = now();
-  const fitted = fitElement(model, opts.cornerAngle, !opts.bakeTransforms);
-  times.fit += now() - t;
-  for (const c of fitted.contours) report.straightMovesNeeded += c.straightMovesNeeded;
-  // Every contour keeps its source (none is shorter refitted, or none could be fitted): leave the element
-  // as written, byte for byte, so a refit of a refit changes nothing there.
-  if (fitted.contours.length > 0 && fitted.contours.every((c) => c.choice === 'original')) {
-    return unchanged('no-shorter', 'already no longer than a refit', fitted);
-  }
-  t = now();
-  const { d, stats } = svgPathData(fitted, mmToLocal, model.budget.digits);
-  times.write += now() - t;
-  const written = parsePathData(d);
-  report.segmentsAfter = { arcs: stats.arcs, lines: stats.lines + closingLines(fitted) };
-  // Already as short as it can be: only lines and arcs, and no fewer drawing commands after fitting.
-  if (!model.curved && el.name === 'path' && drawingCommands(written) >= drawingCommands(p)) {
-    report.segmentsAfter = { arcs: 0, lines: 0 };
-    return unchanged('no-shorter', 'already no longer than a refit', fitted);
-  }
-  t = now();
-  try {
-    report.deviation = measureDeviation(p, el.toMm, written, writtenToMm, tol);
-  } catch (e) {
+  // First every contour fitted on its own without its own measurement (the element's measurement below
+  // covers them all); an element found over the tolerance is fitted again with each contour measured on
+  // its own, so only the contours that are over fall back (to straight moves, or their source).
+  for (let pass = 0; ; pass++) {
+    t = now();
+    const fitted = fitElement(model, opts.cornerAngle, !opts.bakeTransforms, pass > 0);
+    times.fit += now() - t;
+    if (pass === 0) for (const c of fitted.contours) report.straightMovesNeeded += c.straightMovesNeeded;
+    // Every contour keeps its source (none is shorter refitted, or none could be fitted): leave the element
+    // as written, byte for byte, so a refit of a refit changes nothing there.
+    if (fitted.contours.length > 0 && fitted.contours.every((c) => c.choice === 'original')) {
+      return unchanged('no-shorter', 'already no longer than a refit', fitted);
+    }
+    t = now();
+    const { d, stats } = svgPathData(fitted, mmToLocal, model.budget.digits);
+    times.write += now() - t;
+    const written = parsePathData(d);
+    report.segmentsAfter = { arcs: stats.arcs, lines: stats.lines + closingLines(fitted) };
+    // Already as short as it can be: only lines and arcs, and no fewer drawing commands after fitting.
+    if (!model.curved && el.name === 'path' && drawingCommands(written) >= drawingCommands(p)) {
+      report.segmentsAfter = { arcs: 0, lines: 0 };
+      return unchanged('no-shorter', 'already no longer than a refit', fitted);
+    }
+    t = now();
+    try {
+      report.deviation = measureDeviation(p, el.toMm, written, writtenToMm, tol);
+    } catch (e) {
+      times.measure += now() - t;
+      return unchanged('cannot-measure', `cannot measure: ${(e as Error).message}`, fitted);
+    }
     times.measure += now() - t;
-    return unchanged('cannot-measure', `cannot measure: ${(e as Error).message}`, fitted);
+    if (written.error) return unchanged('unreadable-output', `internal: written path data did not re-read (${written.error.message})`, fitted);
+    if (!report.deviation) return unchanged('nothing-to-measure', 'nothing to measure', fitted);
+    if (!(report.deviation.max <= tol)) {
+      if (pass === 0) continue;
+      return unchanged('over-tolerance', `measured deviation ${report.deviation.max.toPrecision(3)} mm is over the tolerance`, fitted);
+    }
+    setRefitted(report);
+    const { edits, droppedEditorAttrs } = svgElementEdits(doc, el, d, opts.bakeTransforms);
+    return { report, edits, fitted, droppedEditorAttrs };
   }
-  times.measure += now() - t;
-  if (written.error) return unchanged('unreadable-output', `internal: written path data did not re-read (${written.error.message})`, fitted);
-  if (!report.deviation) return unchanged('nothing-to-measure', 'nothing to measure', fitted);
-  if (!(report.deviation.max <= tol)) {
-    return unchanged('over-tolerance', `measured deviation ${report.deviation.max.toPrecision(3)} mm is over the tolerance`, fitted);
-  }
-  setRefitted(report);
-  const { edits, droppedEditorAttrs } = svgElementEdits(doc, el, d, opts.bakeTransforms);
-  return { report, edits, fitted, droppedEditorAttrs };
 }

@@ -8,7 +8,7 @@
  * construction; the original is the input itself. Ties go to the original
  * (nothing changes), then to the lines (fewer bytes than arcs).
  */
-import { fitPolyline, type FitOptions } from './fitPolyline.js';
+import { fitPolyline, LINES_SHARE, type FitOptions } from './fitPolyline.js';
 import { thinnedLines } from './thinLines.js';
 import type { Segment } from './segment.js';
 import { polylineDeviation } from '../measure/polylineDeviation.js';
@@ -24,6 +24,11 @@ export interface ContourOptions extends FitOptions {
    * always at least as many as the straight moves, so it needs none).
    */
   originalPieces?: number | null;
+  /**
+   * Measure the spline (and the lines) independently and drop what is over; default true. A pipeline that
+   * measures the whole element anyway passes false, and true again only for an element found over.
+   */
+  measure?: boolean;
 }
 
 export interface ContourFit {
@@ -32,7 +37,7 @@ export interface ContourFit {
   segments: Segment[] | null;
   /** Pieces drawn: segments.length, or originalPieces. */
   pieces: number;
-  /** Measured deviation of the written spline or lines (mm, upper bound); 0 for the original. */
+  /** Measured deviation of the written spline or lines (mm, upper bound); 0 for the original; NaN when not measured. */
   deviation: number;
   /** The spline's measured deviation when it was over the tolerance and dropped, else null. */
   splineOver: number | null;
@@ -45,22 +50,32 @@ export interface ContourFit {
 export function fitContour(xy: Float64Array, opts: ContourOptions): ContourFit {
   const tol = opts.tolerance;
   const closed = opts.closed ?? false;
+  const check = opts.measure ?? true;
   const fit = fitPolyline(xy, opts);
   let segments = fit.segments;
   let choice: ContourChoice = fit.choice;
-  let deviation = segments.length > 0 ? polylineDeviation(xy, closed, segments, tol).max : Infinity;
+  let deviation = segments.length === 0 ? Infinity : check ? measured(xy, closed, segments, tol) : NaN;
   let splineOver: number | null = null;
-  if (!(deviation <= tol)) {
-    // Over (or nothing drawn): straight moves, within the tolerance by construction, measured all the same.
+  if (segments.length === 0 || (check && !(deviation <= tol))) {
+    // Over (or nothing drawn, or not measurable): straight moves, within the tolerance by construction.
     if (segments.length > 0 && choice === 'spline') splineOver = deviation;
-    segments = thinnedLines(xy, closed, tol);
+    segments = thinnedLines(xy, closed, LINES_SHARE * tol);
     choice = 'lines';
-    deviation = segments.length > 0 ? polylineDeviation(xy, closed, segments, tol).max : Infinity;
+    deviation = segments.length === 0 ? Infinity : check ? measured(xy, closed, segments, tol) : NaN;
   }
   const original = opts.originalPieces ?? null;
-  if (original !== null && (!(deviation <= tol) || original <= segments.length)) {
+  if (original !== null && (!(deviation <= tol || Number.isNaN(deviation)) || original <= segments.length)) {
     return { choice: 'original', segments: null, pieces: original, deviation: 0, splineOver };
   }
   // Without an original to keep, lines measured over (only rounding could do that) are still drawn; `deviation` says so.
   return { choice, segments, pieces: segments.length, deviation, splineOver };
+}
+
+/** The independent measurement's deviation (mm), Infinity when it cannot measure (a contour too long to sample). */
+function measured(xy: Float64Array, closed: boolean, segments: Segment[], tol: number): number {
+  try {
+    return polylineDeviation(xy, closed, segments, tol).max;
+  } catch {
+    return Infinity;
+  }
 }

@@ -28,9 +28,11 @@ function hasBeziers(p: PathData): boolean {
  * @param cornerAngle turns sharper than this (degrees) stay sharp corners
  * @param keepSources whether a contour may keep its source subpath: only for a writer that writes the
  *   source's own path data in the source's own coordinates (the SVG writer without baked transforms)
+ * @param measure whether each contour's fit is measured on its own (src/fit/fitContour.ts): a contour
+ *   over the tolerance then becomes straight moves, or keeps its source
  * @returns the contours with their segments, each marked refitted until a check says otherwise
  */
-export function fitElement(el: DrawingElement, cornerAngle: number, keepSources = false): FittedElement {
+export function fitElement(el: DrawingElement, cornerAngle: number, keepSources = false, measure = false): FittedElement {
   const contours = el.contours.map((c): FittedContour => {
     // Per contour, the cheapest of the spline, straight moves and its source pieces (src/fit/fitContour.ts)
     // when the source is lines and arcs, exact geometry an arc-capable machine takes as it is. A source
@@ -39,8 +41,8 @@ export function fitElement(el: DrawingElement, cornerAngle: number, keepSources 
     const source = keepSources ? c.source : undefined;
     const exact = source !== undefined && !hasBeziers(source.path);
     const tol = el.budget.fitMm;
-    const f = fitContour(c.xy, { tolerance: tol, closed: c.closed, cornerAngle, corners: c.corners, originalPieces: exact ? source.pieces : null });
-    const kept = f.choice === 'original' || (source !== undefined && !(f.deviation <= tol));
+    const f = fitContour(c.xy, { tolerance: tol, closed: c.closed, cornerAngle, corners: c.corners, originalPieces: exact ? source.pieces : null, measure });
+    const kept = f.choice === 'original' || (source !== undefined && f.deviation > tol);
     return {
       contour: c, choice: kept ? 'original' : f.choice, segments: kept ? [] : f.segments ?? [],
       straightMovesNeeded: straightMoves(c, el.toleranceMm),
