@@ -13,6 +13,8 @@ export interface Options {
   bakeTransforms: boolean;
   /** Also rewrite circle, ellipse and rect elements, which are exact already, as paths. */
   shapesAsPaths: boolean;
+  /** Keep as written an element with Bézier curves whose refit has more pieces or more bytes than it has. */
+  keepGrowingCurves: boolean;
   /** Millimetres per user unit for a file that states no physical size (CSS px: 25.4/96). */
   assumedMmPerUnit: number;
   /** Decimal places for written coordinates; null derives them from the tolerance. */
@@ -62,6 +64,7 @@ export const DEFAULT_OPTIONS: Readonly<Options> = Object.freeze({
   cornerAngle: 30,
   bakeTransforms: false,
   shapesAsPaths: false,
+  keepGrowingCurves: false,
   assumedMmPerUnit: 25.4 / 96,
   digits: null,
   maxInputBytes: 256 * 2 ** 20,
@@ -81,6 +84,7 @@ export const OPTION_DOCS: Readonly<Record<keyof Options, OptionDoc>> = Object.fr
   cornerAngle: { meaning: 'turns sharper than this stay sharp corners', unit: 'degrees' },
   bakeTransforms: { meaning: 'write circular arcs in root coordinates, element transforms removed', unit: 'flag' },
   shapesAsPaths: { meaning: 'rewrite exact circle/ellipse/rect elements as paths too', unit: 'flag' },
+  keepGrowingCurves: { meaning: 'keep an element with Bézier curves as written when its refit has more pieces or bytes', unit: 'flag' },
   assumedMmPerUnit: { meaning: 'size of one user unit when the file states no physical size', unit: 'mm' },
   digits: { meaning: 'decimal places written (default: derived from the tolerance)', unit: 'count' },
   maxInputBytes: { meaning: 'largest input accepted; larger files are refused before reading (memory: plan for about 20x the file size)', unit: 'bytes' },
@@ -146,6 +150,7 @@ export function resolveOptions(input: ArcsplineOptions = {}): Options {
     cornerAngle: partial.cornerAngle ?? DEFAULT_OPTIONS.cornerAngle,
     bakeTransforms: partial.bakeTransforms ?? DEFAULT_OPTIONS.bakeTransforms,
     shapesAsPaths: partial.shapesAsPaths ?? DEFAULT_OPTIONS.shapesAsPaths,
+    keepGrowingCurves: partial.keepGrowingCurves ?? DEFAULT_OPTIONS.keepGrowingCurves,
     assumedMmPerUnit: partial.assumedMmPerUnit ?? DEFAULT_OPTIONS.assumedMmPerUnit,
     digits: partial.digits === undefined ? DEFAULT_OPTIONS.digits : partial.digits,
     maxInputBytes: partial.maxInputBytes ?? DEFAULT_OPTIONS.maxInputBytes,

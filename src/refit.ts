@@ -18,7 +18,7 @@ import { applyEdits, type Edit } from './write/document.js';
 import { elementTag } from './report/table.js';
 import type { ElementReport, FileReport } from './report/types.js';
 import { refitElement, untouchedReport } from './refitElement.js';
-import { copiesSummary, editorSummary, summarise, untouchedSummary, wigglySummary } from './refitSummary.js';
+import { copiesSummary, editorSummary, growingSummary, summarise, untouchedSummary, wigglySummary } from './refitSummary.js';
 import { planDocument, type PlanOutcome } from './planRefit.js';
 
 /** Time spent per stage, milliseconds. */
@@ -124,6 +124,8 @@ export function assemble(
   if (editor) warnings.push(editor);
   const wiggly = wigglySummary(elements, opts.tolerance);
   if (wiggly) warnings.push(wiggly);
+  const growing = growingSummary(elements);
+  if (growing) warnings.push(growing);
   const t = now();
   const out = applyEdits(text, edits);
   times.write += now() - t;

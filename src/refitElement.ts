@@ -7,7 +7,7 @@ import type { Options } from './options.js';
 import type { GeometryElement, SvgDocument } from './svg/document.js';
 import { parsePathData } from './svg/pathData.js';
 import { invert, maxScale } from './svg/matrix.js';
-import { OP_L, OP_M, OP_Z, type ParsedPath, type PathData } from './svg/pathTypes.js';
+import { OP_C, OP_L, OP_M, OP_Q, OP_Z, type ParsedPath, type PathData } from './svg/pathTypes.js';
 import type { Matrix } from './svg/matrixTypes.js';
 import { drawingElementFromSvg, readGeometry } from './model/fromSvg.js';
 import { fitElement, setContourOutcomes } from './model/fit.js';
@@ -54,7 +54,7 @@ function commandsOf(el: GeometryElement, p: ParsedPath | null): Record<string, n
 export function baseReport(el: GeometryElement, p: ParsedPath | null): ElementReport {
   return {
     index: el.index, name: el.name, id: el.id, ancestors: el.ancestors, commandsBefore: commandsOf(el, p),
-    straightMovesNeeded: 0, segmentsAfter: { arcs: 0, lines: 0 }, deviation: null,
+    straightMovesNeeded: 0, segmentsAfter: { arcs: 0, lines: 0 }, grows: false, deviation: null,
     kept: true, keptReason: null, status: 'kept', reason: null,
     style: { stroke: el.style.stroke, fill: el.style.fill, strokeWidthMm: el.style.strokeWidthMm }, copies: el.copies.length,
   };
@@ -66,6 +66,12 @@ export function untouchedReport(el: GeometryElement): ElementReport {
   const r = baseReport(el, readGeometry(el, []));
   setUnchanged(r, 'not-drawn', el.reason ?? 'not rewritable');
   return r;
+}
+
+/** True when path data has Bézier segments. */
+function hasBeziers(p: PathData): boolean {
+  for (let i = 0; i < p.ops.length; i++) if (p.ops[i] === OP_C || p.ops[i] === OP_Q) return true;
+  return false;
 }
 
 /** Segments drawn (every command but moveto; a Z draws the closing line). */
@@ -139,6 +145,13 @@ export function refitElement(
     if (!model.curved && el.name === 'path' && drawingCommands(written) >= drawingCommands(p)) {
       report.segmentsAfter = { arcs: 0, lines: 0 };
       return unchanged('no-shorter', 'already no longer than a refit', fitted);
+    }
+    // Bézier curves that come out as more pieces, or more bytes, than written: said in the report, and
+    // kept as written when asked.
+    report.grows = hasBeziers(p) && (report.segmentsAfter.arcs + report.segmentsAfter.lines > drawingCommands(p) ||
+      (el.name === 'path' && d.length > (el.attrs.d ?? '').length));
+    if (report.grows && opts.keepGrowingCurves) {
+      return unchanged('grows', 'its refit has more pieces or bytes than written (kept: keepGrowingCurves)', fitted);
     }
     t = now();
     try {

@@ -29,6 +29,14 @@ export function wigglySummary(elements: readonly ElementReport[], tol: number): 
     '(a traced bitmap\'s pixel steps, for one), and a larger tolerance gives fewer, smoother pieces';
 }
 
+/** One line when rewritten elements with Bézier curves came out with more pieces or bytes than written; null when none did. */
+export function growingSummary(elements: readonly ElementReport[]): string | null {
+  const grew = elements.filter((e) => e.status === 'refitted' && e.grows);
+  if (grew.length === 0) return null;
+  return `${grew.length} rewritten element${grew.length > 1 ? 's' : ''} with Bézier curves came out with more pieces or bytes than written ` +
+    `(first ${elementTag(grew[0])}): arcs and lines are what an arc-capable machine takes; keepGrowingCurves (--keep-growing-curves) keeps such elements as written`;
+}
+
 /** One line when rewritable elements are drawn larger elsewhere by <use>: they are fitted within a share of the tolerance. */
 export function copiesSummary(doc: SvgDocument, tol: number): string | null {
   const larger = doc.elements.filter((el) => el.rewritable && el.copyScale > 1);

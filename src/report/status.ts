@@ -12,6 +12,7 @@ export const REASON_STATUS: Readonly<Record<OutcomeReason, Exclude<OutcomeStatus
   'too-few-digits': 'kept',
   'cannot-flatten': 'kept',
   'no-shorter': 'kept',
+  'grows': 'kept',
   'over-tolerance': 'reverted',
   'cannot-measure': 'reverted',
   'unreadable-output': 'reverted',

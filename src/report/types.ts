@@ -31,13 +31,14 @@ export type OutcomeStatus = 'refitted' | 'kept' | 'reverted';
  *   (not drawn where it stands, or cannot be: the reader's message says which),
  *   `cannot-invert` (its coordinate system is singular), `too-few-digits` (fixed
  *   decimals leave the fit too little of the tolerance), `cannot-flatten`,
- *   `no-shorter` (lines only and the refit is no shorter);
+ *   `no-shorter` (lines only and the refit is no shorter); `grows` (Bézier curves whose refit has more
+ *   pieces or bytes, kept by the keepGrowingCurves option);
  * - reverted: `over-tolerance` (the measured deviation is over the tolerance),
  *   `cannot-measure`, `unreadable-output` (the written path data did not read
  *   back: an internal fault), `nothing-to-measure`.
  */
 export type OutcomeReason =
-  | 'exact-shape' | 'not-drawn' | 'cannot-invert' | 'too-few-digits' | 'cannot-flatten' | 'no-shorter'
+  | 'exact-shape' | 'not-drawn' | 'cannot-invert' | 'too-few-digits' | 'cannot-flatten' | 'no-shorter' | 'grows'
   | 'over-tolerance' | 'cannot-measure' | 'unreadable-output' | 'nothing-to-measure';
 
 export interface ElementReport {
@@ -53,6 +54,8 @@ export interface ElementReport {
   straightMovesNeeded: number;
   /** Pieces written: arcs, and lines including the closing lines drawn by Z. */
   segmentsAfter: { arcs: number; lines: number };
+  /** True when it has Bézier curves and its refit has more pieces or more bytes of path data than written. */
+  grows: boolean;
   /** Measured on the written output; null when nothing could be measured (empty geometry). */
   deviation: Deviation | null;
   /** True when the original geometry was written back unchanged (status is not 'refitted'). */

@@ -59,7 +59,7 @@ export const SMALL = `<svg xmlns="http://www.w3.org/2000/svg" width="100mm" heig
 
 export const FILE_REPORT_KEYS = ['tool', 'version', 'file', 'toleranceMm', 'bytesIn', 'bytesOut', 'timeMs', 'elements', 'totals', 'paints', 'warnings'] as const;
 export const TOTALS_KEYS = ['elements', 'rewritten', 'kept', 'commandsBefore', 'segmentsAfter', 'maxDeviation', 'withinTolerance'] as const;
-export const ELEMENT_KEYS = ['index', 'name', 'id', 'ancestors', 'commandsBefore', 'straightMovesNeeded', 'segmentsAfter', 'deviation', 'kept', 'keptReason', 'status', 'reason', 'style', 'copies'] as const;
+export const ELEMENT_KEYS = ['index', 'name', 'id', 'ancestors', 'commandsBefore', 'straightMovesNeeded', 'segmentsAfter', 'grows', 'deviation', 'kept', 'keptReason', 'status', 'reason', 'style', 'copies'] as const;
 export const DEVIATION_KEYS = ['max', 'originalToResult', 'resultToOriginal', 'mean', 'worstMm', 'worstUser'] as const;
 /** The report's `machine` field, present only for G-code and DXF output (FILE_REPORT_KEYS are an SVG report's). */
 export const MACHINE_KEYS = ['format', 'profile', 'origin', 'digits', 'lines', 'moves', 'checked', 'seconds', 'straight'] as const;

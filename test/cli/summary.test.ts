@@ -5,7 +5,7 @@ import type { ElementReport, FileReport } from '../../src/report/types.js';
 function element(over: Partial<ElementReport>): ElementReport {
   return {
     index: 3, name: 'path', id: 'outline', ancestors: 'svg > g#cut', commandsBefore: { C: 1800, M: 1 }, straightMovesNeeded: 500,
-    segmentsAfter: { arcs: 40, lines: 5 }, kept: false, keptReason: null, status: 'refitted', reason: null,
+    segmentsAfter: { arcs: 40, lines: 5 }, grows: false, kept: false, keptReason: null, status: 'refitted', reason: null,
     style: { stroke: '#ff0000', fill: 'none', strokeWidthMm: 0.1 }, copies: 0,
     deviation: { max: 0.0864, originalToResult: 0.0864, resultToOriginal: 0.05, mean: 0.02, worstMm: [1, 2], worstUser: [1, 2] },
     ...over,

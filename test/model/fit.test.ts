@@ -47,3 +47,31 @@ describe('per-contour choice', () => {
     expect(runs[3].text).toBe(runs[2].text);
   });
 });
+
+describe('Bézier elements that grow', () => {
+  // A wavy open curve of 4 cubics that needs many more arcs than 4 at a fine tolerance (our own drawing).
+  const wavy = page('M10 50 C20 10 30 90 40 50 S60 10 70 50 S90 90 95 50 S99 20 99 40');
+
+  it('are reported (grows) and rewritten by default', () => {
+    const r = refitSvg(wavy, { tolerance: 0.01 });
+    const e = r.report.elements[0];
+    expect(e.status).toBe('refitted');
+    expect(e.segmentsAfter.arcs + e.segmentsAfter.lines).toBeGreaterThan(4);
+    expect(e.grows).toBe(true);
+    expect(r.report.warnings.join('\n')).toMatch(/1 rewritten element with Bézier curves came out with more pieces or bytes than written/);
+  });
+
+  it('are kept as written with keepGrowingCurves, reason grows', () => {
+    const r = refitSvg(wavy, { tolerance: 0.01, keepGrowingCurves: true });
+    expect(r.report.elements[0].reason).toBe('grows');
+    expect(r.text).toBe(wavy);
+  });
+
+  it('a Bézier circle refitted into fewer pieces does not grow', () => {
+    const k = 0.5523 * 20;
+    const circle = page(`M70 50C70 ${50 + k} ${50 + k} 70 50 70C${50 - k} 70 30 ${50 + k} 30 50C30 ${50 - k} ${50 - k} 30 50 30C${50 + k} 30 70 ${50 - k} 70 50Z`);
+    const e = refitSvg(circle, { tolerance: 0.05, keepGrowingCurves: true }).report.elements[0];
+    expect(e.status).toBe('refitted');
+    expect(e.grows).toBe(false);
+  });
+});

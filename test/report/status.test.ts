@@ -6,7 +6,7 @@ import type { ElementReport } from '../../src/report/types.js';
 function entry(): ElementReport {
   return {
     index: 1, name: 'path', id: null, ancestors: 'svg', commandsBefore: { M: 1, C: 1 }, straightMovesNeeded: 3,
-    segmentsAfter: { arcs: 1, lines: 0 }, deviation: null, kept: true, keptReason: null, status: 'kept', reason: null,
+    segmentsAfter: { arcs: 1, lines: 0 }, grows: false, deviation: null, kept: true, keptReason: null, status: 'kept', reason: null,
     style: { stroke: 'none', fill: '#000000', strokeWidthMm: 0.26 }, copies: 0,
   };
 }
