@@ -216,35 +216,35 @@ function fitSeam(sp: StretchParams): StretchFit {
   // turns most saved no pieces worth moving the start for.
   const pts = slice(cxy, mc, 0, mc);
   const fit = fitStretch(pts, mc, pts[0], pts[1], null, endAt('seam'), sp);
-  const halves = fit.pieces.length === 2 ? halveCircle(pts, mc, fit.pieces, sp.tol) : null;
+  const halves = fit.pieces.length >= 2 ? wholeCircle(pts, mc, fit.pieces, sp.tol) : null;
   return halves ? { pieces: halves, breaks: fit.breaks } : fit;
 }
 
 /**
- * A whole circle fitted as two arcs from the seam (one nearly all the way round, one a sliver) becomes
- * two half turns: the sliver is no feature of the input, and a near-full arc is the worst conditioned to
- * write (its ends almost meet). Both halves are rotor steps (./piece.ts) from the seam's own tangent,
- * through the point opposite the seam, so the tangent stays continuous; null when the pieces are not
- * one circle or a half does not fit.
+ * A smooth closed contour that is a circle comes back as two half turns on it: the arcs through knots
+ * at vertices take the circle of those vertices, noise and all, and a whole circle fitted from a seam
+ * often ends as one arc nearly all the way round and a sliver (no feature of the input; and a near-full
+ * arc is the worst conditioned to write, its ends almost meet). Tried on the circle of all the vertices
+ * (an algebraic fit, ./circleFit.ts), then, when the spline is two arcs of one circle, on that circle.
+ * Both halves are rotor steps (./piece.ts) from the start's tangent through the point opposite it, so
+ * the tangent stays continuous; null when neither fits.
  */
-function halveCircle(pts: Float64Array, last: number, pieces: Piece[], tol: number): Piece[] | null {
-  const [A, B] = pieces;
-  if (A.kind !== 'arc' || B.kind !== 'arc') return null;
-  const ax = -A.mq / A.mr, ay = A.mp / A.mr, bx = -B.mq / B.mr, by = B.mp / B.mr;
-  const r = Math.hypot(A.x0 - ax, A.y0 - ay);
-  if (!(Math.hypot(ax - bx, ay - by) <= 1e-9 * r && Math.abs(Math.hypot(B.x0 - bx, B.y0 - by) - r) <= 1e-9 * r)) return null;
-  // The circle of all the vertices (an algebraic fit, ./circleFit.ts): the arcs through knots at vertices
-  // take the circle of those vertices, noise and all; the fit takes all of them. Start at the seam's
-  // foot on it, with the same turning sense; the spline's own circle where that does not fit.
+function wholeCircle(pts: Float64Array, last: number, pieces: Piece[], tol: number): Piece[] | null {
+  const A = pieces[0];
+  if (A.kind !== 'arc' || pieces.some((p) => p.kind !== 'arc')) return null;
   const c = kasaCircle(pts, last);
   if (c) {
     const onFit = halvesOn(pts, last, c.cx, c.cy, c.r, A, tol);
     if (onFit) return onFit;
   }
+  if (pieces.length !== 2) return null;
+  const B = pieces[1];
+  const ax = -A.mq / A.mr, ay = A.mp / A.mr, bx = -B.mq / B.mr, by = B.mp / B.mr;
+  const r = Math.hypot(A.x0 - ax, A.y0 - ay);
+  if (!(Math.hypot(ax - bx, ay - by) <= 1e-9 * r && Math.abs(Math.hypot(B.x0 - bx, B.y0 - by) - r) <= 1e-9 * r)) return null;
   return halvesOn(pts, last, ax, ay, r, A, tol);
 }
 
-/** Two half-turn arcs on the circle (cx, cy, r), from the seam's foot on it round to it again. */
 function halvesOn(pts: Float64Array, last: number, cx: number, cy: number, r: number, A: Piece, tol: number): Piece[] | null {
   const ux = pts[0] - cx, uy = pts[1] - cy, ul = Math.hypot(ux, uy);
   if (!(ul > 0)) return null;
@@ -254,24 +254,23 @@ function halvesOn(pts: Float64Array, last: number, cx: number, cy: number, r: nu
   const [t0x, t0y] = pieceStartTangent(A);
   const sg = Math.sign(ux * t0y - uy * t0x) || 1;
   const tx = (-sg * uy) / ul, ty = (sg * ux) / ul;
-  const jx = 2 * cx - sx, jy = 2 * cy - sy;
+  const ox = 2 * cx - sx, oy = 2 * cy - sy;
   let split = 0, best = Infinity;
-  for (let k = 0; k <= last; k++) {
-    const d = (pts[2 * k] - jx) ** 2 + (pts[2 * k + 1] - jy) ** 2;
+  for (let k = 1; k < last; k++) {
+    const d = (pts[2 * k] - ox) ** 2 + (pts[2 * k + 1] - oy) ** 2;
     if (d < best) {
       best = d;
       split = k;
     }
   }
-  // The vertex ranges meet at the vertex nearest the junction, or one either side of it (the junction
-  // lies between two vertices; either range may hold the one next to it).
-  for (const k of [split, split - 1, split + 1]) {
-    if (k <= 0 || k >= last) continue;
-    const first = makePiece(pts, 0, k, -tx, -ty, 0, sx, sy, jx, jy, tol);
-    const second = first ? makePiece(pts, k, last, first.mp, first.mq, first.mr, jx, jy, sx, sy, tol) : null;
-    if (!first || !second || first.kind !== 'arc' || second.kind !== 'arc') continue;
-    if (second.tx * tx + second.ty * ty <= 0 || Math.abs(second.tx * ty - second.ty * tx) > TANGENT_EPS) continue;
-    return [first, second];
-  }
-  return null;
+  // The junction: the foot on the circle of the vertex nearest the opposite point (a knot at a vertex, so
+  // each half stands for the vertices on its side; the halves then turn about half a turn each).
+  const vx = pts[2 * split] - cx, vy = pts[2 * split + 1] - cy, vl = Math.hypot(vx, vy);
+  if (split === 0 || !(vl > 0)) return null;
+  const jx = cx + (r * vx) / vl, jy = cy + (r * vy) / vl;
+  const first = makePiece(pts, 0, split, -tx, -ty, 0, sx, sy, jx, jy, tol);
+  const second = first ? makePiece(pts, split, last, first.mp, first.mq, first.mr, jx, jy, sx, sy, tol) : null;
+  if (!first || !second || first.kind !== 'arc' || second.kind !== 'arc') return null;
+  if (second.tx * tx + second.ty * ty <= 0 || Math.abs(second.tx * ty - second.ty * tx) > TANGENT_EPS) return null;
+  return [first, second];
 }

@@ -65,6 +65,26 @@ describe('exact shapes come back exact', () => {
     }
   });
 
+  it('a circle sampled and rounded to 0.0001 mm (as written in a file) is 2 arcs on its circle', () => {
+    for (let seed = 1; seed <= 40; seed++) {
+      const next = rng(750 + seed);
+      const tol = [0.02, 0.05, 0.1][seed % 3];
+      const r = 1 + 40 * next(), n = Math.max(24, Math.ceil(Math.PI / Math.acos(1 - (0.3 * tol) / r)) + Math.floor(400 * next()));
+      const sag = r * (1 - Math.cos(Math.PI / n));
+      const xy = new Float64Array(2 * n);
+      for (let i = 0; i < n; i++) {
+        xy[2 * i] = Math.round((50 + r * Math.cos((2 * Math.PI * i) / n)) * 1e4) / 1e4;
+        xy[2 * i + 1] = Math.round((50 + r * Math.sin((2 * Math.PI * i) / n)) * 1e4) / 1e4;
+      }
+      const f = fitPolyline(xy, { tolerance: tol, closed: true });
+      const what = `seed ${seed}: r ${r.toFixed(3)}, n ${n}, tol ${tol}`;
+      expect(f.segments.length, what).toBe(2);
+      // The rounding moves each vertex by up to √2/2·1e-4 mm (REFERENCES.md §10.3 C1c allows that much).
+      for (const s of f.segments) expect(Math.abs(arcGeometry(s)!.r - r), what).toBeLessThanOrEqual(0.1 * tol + sag + 1e-4);
+      expect(Math.hypot(f.segments[0].x0 - xy[0], f.segments[0].y0 - xy[1]), what).toBeLessThanOrEqual(1e-4);
+    }
+  });
+
   it('the arcs of a line/arc composition keep their radius (rounded rectangles, fillet radius 0.5–10 mm)', () => {
     for (let seed = 1; seed <= 20; seed++) {
       const next = rng(800 + seed);
