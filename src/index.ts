@@ -68,6 +68,13 @@ export type { MotionEstimate, MotionParams } from './machine/motion.js';
  */
 export { fitPolyline } from './fit/fitPolyline.js';
 export type { FitOptions, FitResult } from './fit/fitPolyline.js';
+/**
+ * One contour never worse than its input: `fitContour(xy, opts)` returns the cheapest of the spline,
+ * straight moves through its vertices and (given `opts.originalPieces`) its own source pieces, each within
+ * the tolerance by the independent measurement, and says which it chose.
+ */
+export { fitContour } from './fit/fitContour.js';
+export type { ContourChoice, ContourFit, ContourOptions } from './fit/fitContour.js';
 export { arcGeometry } from './fit/segment.js';
 export type { ArcGeometry, Segment } from './fit/segment.js';
 

@@ -12,7 +12,7 @@ const ROOT = fileURLToPath(new URL('..', import.meta.url));
 
 describe('the library entry', () => {
   it('exports the documented functions and values', () => {
-    for (const name of ['refitSvg', 'resolveOptions', 'parseToleranceText', 'fitPolyline', 'arcGeometry', 'measureDeviation', 'compareSvg', 'parsePathData']) {
+    for (const name of ['refitSvg', 'resolveOptions', 'parseToleranceText', 'fitPolyline', 'fitContour', 'arcGeometry', 'measureDeviation', 'compareSvg', 'parsePathData']) {
       expect(typeof (api as Record<string, unknown>)[name], name).toBe('function');
     }
     expect(Object.isFrozen(DEFAULT_OPTIONS)).toBe(true);
