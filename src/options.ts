@@ -15,6 +15,8 @@ export interface Options {
   shapesAsPaths: boolean;
   /** Keep as written an element with Bézier curves whose refit has more pieces or more bytes than it has. */
   keepGrowingCurves: boolean;
+  /** Refit elements a previous run marked (data-arcspline-tolerance) as if new; their deviations may then add up. */
+  refitMarked: boolean;
   /** Millimetres per user unit for a file that states no physical size (CSS px: 25.4/96). */
   assumedMmPerUnit: number;
   /** Decimal places for written coordinates; null derives them from the tolerance. */
@@ -65,6 +67,7 @@ export const DEFAULT_OPTIONS: Readonly<Options> = Object.freeze({
   bakeTransforms: false,
   shapesAsPaths: false,
   keepGrowingCurves: false,
+  refitMarked: false,
   assumedMmPerUnit: 25.4 / 96,
   digits: null,
   maxInputBytes: 256 * 2 ** 20,
@@ -85,6 +88,7 @@ export const OPTION_DOCS: Readonly<Record<keyof Options, OptionDoc>> = Object.fr
   bakeTransforms: { meaning: 'write circular arcs in root coordinates, element transforms removed', unit: 'flag' },
   shapesAsPaths: { meaning: 'rewrite exact circle/ellipse/rect elements as paths too', unit: 'flag' },
   keepGrowingCurves: { meaning: 'keep an element with Bézier curves as written when its refit has more pieces or bytes', unit: 'flag' },
+  refitMarked: { meaning: 'refit elements an earlier run marked (data-arcspline-tolerance) as if new; deviations from the first original may then add up', unit: 'flag' },
   assumedMmPerUnit: { meaning: 'size of one user unit when the file states no physical size', unit: 'mm' },
   digits: { meaning: 'decimal places written (default: derived from the tolerance)', unit: 'count' },
   maxInputBytes: { meaning: 'largest input accepted; larger files are refused before reading (memory: plan for about 20x the file size)', unit: 'bytes' },
@@ -151,6 +155,7 @@ export function resolveOptions(input: ArcsplineOptions = {}): Options {
     bakeTransforms: partial.bakeTransforms ?? DEFAULT_OPTIONS.bakeTransforms,
     shapesAsPaths: partial.shapesAsPaths ?? DEFAULT_OPTIONS.shapesAsPaths,
     keepGrowingCurves: partial.keepGrowingCurves ?? DEFAULT_OPTIONS.keepGrowingCurves,
+    refitMarked: partial.refitMarked ?? DEFAULT_OPTIONS.refitMarked,
     assumedMmPerUnit: partial.assumedMmPerUnit ?? DEFAULT_OPTIONS.assumedMmPerUnit,
     digits: partial.digits === undefined ? DEFAULT_OPTIONS.digits : partial.digits,
     maxInputBytes: partial.maxInputBytes ?? DEFAULT_OPTIONS.maxInputBytes,

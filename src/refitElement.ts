@@ -14,6 +14,7 @@ import { fitElement, setContourOutcomes } from './model/fit.js';
 import type { FittedElement } from './model/drawing.js';
 import { arcGeometry } from './fit/segment.js';
 import { svgElementEdits, svgPathData } from './write/svgElement.js';
+import { readMark } from './write/refitMark.js';
 import type { Edit } from './write/document.js';
 import { measureDeviation } from './measure/measure.js';
 import { setRefitted, setUnchanged } from './report/status.js';
@@ -114,7 +115,14 @@ export function refitElement(
     return unchanged('exact-shape', 'an exact shape already');
   }
   // A copy drawn larger by <use> magnifies any deviation: fit and check within the tolerance over that factor.
-  const tol = opts.tolerance / Math.max(1, el.copyScale);
+  const elTol = opts.tolerance / Math.max(1, el.copyScale);
+  // A previous run's mark: what that refit may already have spent of the distance to the first original.
+  const spent = opts.refitMarked ? null : readMark(el.attrs);
+  if (spent !== null && elTol <= spent * (1 + 1e-9)) {
+    return unchanged('already-refitted', `refitted before within ${+spent.toPrecision(6)} mm (its mark); a refit within ${+elTol.toPrecision(6)} mm would add to that`);
+  }
+  // The fit and its measurement get what is left, so the mark written (elTol) bounds the distance to the first original.
+  const tol = spent === null ? elTol : elTol - spent;
   // Where the written coordinates live: the element's own user units, or root user units when baking.
   const writtenToMm: Matrix = opts.bakeTransforms ? doc.rootToMm : el.toMm;
   const mmToLocal = invert(new Float64Array(6), writtenToMm);
@@ -168,7 +176,7 @@ export function refitElement(
       return unchanged('over-tolerance', `measured deviation ${report.deviation.max.toPrecision(3)} mm is over the tolerance`, fitted);
     }
     setRefitted(report);
-    const { edits, droppedEditorAttrs } = svgElementEdits(doc, el, d, opts.bakeTransforms);
+    const { edits, droppedEditorAttrs } = svgElementEdits(doc, el, d, opts.bakeTransforms, elTol);
     return { report, edits, fitted, droppedEditorAttrs };
   }
 }

@@ -13,6 +13,7 @@ export const REASON_STATUS: Readonly<Record<OutcomeReason, Exclude<OutcomeStatus
   'cannot-flatten': 'kept',
   'no-shorter': 'kept',
   'grows': 'kept',
+  'already-refitted': 'kept',
   'over-tolerance': 'reverted',
   'cannot-measure': 'reverted',
   'unreadable-output': 'reverted',

@@ -32,13 +32,14 @@ export type OutcomeStatus = 'refitted' | 'kept' | 'reverted';
  *   `cannot-invert` (its coordinate system is singular), `too-few-digits` (fixed
  *   decimals leave the fit too little of the tolerance), `cannot-flatten`,
  *   `no-shorter` (lines only and the refit is no shorter); `grows` (Bézier curves whose refit has more
- *   pieces or bytes, kept by the keepGrowingCurves option);
+ *   pieces or bytes, kept by the keepGrowingCurves option); `already-refitted` (a previous run
+ *   refitted it within this tolerance or less: its mark, src/write/refitMark.ts);
  * - reverted: `over-tolerance` (the measured deviation is over the tolerance),
  *   `cannot-measure`, `unreadable-output` (the written path data did not read
  *   back: an internal fault), `nothing-to-measure`.
  */
 export type OutcomeReason =
-  | 'exact-shape' | 'not-drawn' | 'cannot-invert' | 'too-few-digits' | 'cannot-flatten' | 'no-shorter' | 'grows'
+  | 'exact-shape' | 'not-drawn' | 'cannot-invert' | 'too-few-digits' | 'cannot-flatten' | 'no-shorter' | 'grows' | 'already-refitted'
   | 'over-tolerance' | 'cannot-measure' | 'unreadable-output' | 'nothing-to-measure';
 
 export interface ElementReport {

@@ -15,6 +15,7 @@ import { formatNumber } from './numbers.js';
 import { emitSegments, type EmitStats } from './emit.js';
 import { editStartTag, type Edit } from './document.js';
 import { parametricAttributes } from './editorAttrs.js';
+import { MARK_ATTR, formatMark } from './refitMark.js';
 
 /** Attributes a shape loses when it becomes a path. */
 export const SHAPE_ATTRS: Readonly<Record<ShapeName, readonly string[]>> = {
@@ -103,9 +104,9 @@ function writeSource(sink: PathWriter, p: PathData, digits: number): { arcs: num
 
 /** The start-tag edits that put `d` on an element, and the editor attributes they drop. */
 export function svgElementEdits(
-  doc: Pick<SvgDocument, 'text'>, el: GeometryElement, d: string, bakeTransforms: boolean,
+  doc: Pick<SvgDocument, 'text'>, el: GeometryElement, d: string, bakeTransforms: boolean, markMm: number,
 ): { edits: Edit[]; droppedEditorAttrs: string[] } {
-  const set: Record<string, string> = { d };
+  const set: Record<string, string> = { d, [MARK_ATTR]: formatMark(markMm) };
   const remove: string[] = el.name === 'path' ? [] : SHAPE_ATTRS[el.name].filter((a) => a in el.attrs);
   const dropped = parametricAttributes(el.attrs, el.namespaces);
   remove.push(...dropped);

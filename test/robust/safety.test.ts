@@ -31,16 +31,19 @@ describe('data safety', () => {
     expect(Buffer.from(r.text, 'utf8').equals(Buffer.from(text, 'utf8'))).toBe(true);
   });
 
-  it('something refitted: only the d attribute value differs', () => {
+  it('something refitted: only the d attribute value differs, and the mark of the refit is added', () => {
     const tail = '\r\n<!-- trailing comment -->\r\n';
     const text = `${PROLOG}\t<path id="c"\r\n   d="${CIRCLE}" />\r\n</svg>${tail}`;
     const r = refitSvg(text);
     expect(r.report.totals.rewritten).toBe(1);
+    const mark = ' data-arcspline-tolerance="0.1"';
+    expect(r.text.split(mark).length).toBe(2);
+    const out = r.text.replace(mark, '');
     const a = text.indexOf(CIRCLE);
     const b = a + CIRCLE.length;
-    expect(r.text.slice(0, a)).toBe(text.slice(0, a));
-    expect(r.text.endsWith(text.slice(b))).toBe(true);
-    expect(r.text.slice(a, r.text.length - (text.length - b))).not.toContain('"');
+    expect(out.slice(0, a)).toBe(text.slice(0, a));
+    expect(out.endsWith(text.slice(b))).toBe(true);
+    expect(out.slice(a, out.length - (text.length - b))).not.toContain('"');
   });
 
   // A closed line-only path once looked one segment shorter after "fitting" (the Z was
