@@ -185,9 +185,6 @@ export function resolveOptions(input: ArcsplineOptions = {}): Options {
     throw new OptionError(`joinDistance must be a number of mm from 0 up (or null for the tolerance), got ${String(partial.joinDistance)}`);
   }
   if (o.plan && o.bakeTransforms) throw new OptionError('plan and bakeTransforms cannot be used together yet: the plan writes each colour\'s contours in the coordinates of its first element');
-  if (o.plan && o.format !== 'svg') {
-    throw new OptionError(`plan writes SVG only for now, not ${o.format}: plan to SVG first (--plan -o planned.svg), then write the machine file from planned.svg, which keeps the plan's order`);
-  }
   return o;
 }
 

@@ -21,7 +21,6 @@ import { OptionError, resolveOptions, type ArcsplineOptions } from './options.js
 import { readSvg } from './svg/document.js';
 import { drawingElementFromSvg, readGeometry } from './model/fromSvg.js';
 import { fitElement } from './model/fit.js';
-import type { DrawingElement } from './model/drawing.js';
 import { baseReport, untouchedReport } from './refitElement.js';
 import { copiesSummary, summarise, untouchedSummary } from './refitSummary.js';
 import { setRefitted, setUnchanged } from './report/status.js';
@@ -34,6 +33,8 @@ import { MIN_MACHINE_DIGITS, machineDigits } from './machine/digits.js';
 import type { MachineElement } from './machine/drawing.js';
 import { loadProfile } from './machine/profile.js';
 import { straightEstimate, writeMachineFile, type MachineFile } from './machine/program.js';
+import type { MachineElementProof } from './machine/proof.js';
+import { planMachine, planReport, type MachineCandidate, type MachinePlanGroup } from './machine/plan.js';
 
 /** What {@link refitToMachine} gives. */
 export interface MachineRefitResult {
@@ -103,8 +104,7 @@ export function refitToMachine(text: string, options: ArcsplineOptions = {}, fil
   for (const el of doc.elements) if (el.rewritable) tightest = Math.min(tightest, opts.tolerance / Math.max(1, el.copyScale));
   const digits = opts.digits ?? machineDigits(tightest);
   const reports: ElementReport[] = [];
-  const elements: MachineElement[] = [];
-  const models = new Map<number, { model: DrawingElement; report: ElementReport }>();
+  const cands: (MachineCandidate & { report: ElementReport })[] = [];
   const what = format === 'gcode' ? 'G-code' : 'DXF';
   let missing = 0, points = 0;
   for (const el of doc.elements) {
@@ -124,32 +124,68 @@ export function refitToMachine(text: string, options: ArcsplineOptions = {}, fil
       missing++;
       continue;
     }
-    const fitted = fitElement(model, opts.cornerAngle);
     points += model.points.length / 2;
-    let arcs = 0, lines = 0;
-    for (const c of fitted.contours) {
-      report.straightMovesNeeded += c.straightMovesNeeded;
-      for (const s of c.segments) if (arcGeometry(s)) arcs++; else lines++;
-    }
-    report.segmentsAfter = { arcs, lines };
-    elements.push({
-      index: el.index, label: el.id ? `${el.name}#${el.id}` : el.name, group: strokeKey(model.style.stroke), toleranceMm: tol,
-      contours: fitted.contours.map((c) => ({ segments: c.segments, closed: c.contour.closed })),
-      original: { path: model.points.length > 0 ? withoutPointSubpaths(p) : p, toMm: el.toMm },
-    });
-    models.set(el.index, { model, report });
+    const original = { path: model.points.length > 0 ? withoutPointSubpaths(p) : p, toMm: el.toMm };
+    cands.push({ model, report, label: el.id ? `${el.name}#${el.id}` : el.name, original });
   }
   if (points > 0) warnings.push(`${points === 1 ? '1 point mark (a subpath that draws only a point) is' : `${points} point marks (subpaths that draw only a point) are`} not written to the ${what} file`);
-  const drawing = { pageHeightMm: doc.pageMm[1], elements, source: file };
+  // The plan starts where the head waits: the machine origin, on the page.
+  const home: [number, number] = [0, opts.machineOrigin === 'lower-left' ? doc.pageMm[1] : 0];
+  const tPlan = now();
+  const groups = opts.plan ? planMachine(cands, opts, home) : [];
+  const planMs = now() - tPlan;
+  const active = new Map(groups.map((g) => [g.anchor, g]));
+  const memberOf = new Map<number, MachinePlanGroup>();
+  for (const g of groups) for (const i of g.members) memberOf.set(i, g);
+  const unplanned = new Map<number, MachineElement>();
+  /** An element fitted on its own (its report says what the fit made). */
+  const single = (c: MachineCandidate & { report: ElementReport }): MachineElement => {
+    const have = unplanned.get(c.model.index);
+    if (have) return have;
+    const fitted = fitElement(c.model, opts.cornerAngle);
+    let arcs = 0, lines = 0;
+    for (const fc of fitted.contours) {
+      c.report.straightMovesNeeded += fc.straightMovesNeeded;
+      for (const s of fc.segments) if (arcGeometry(s)) arcs++; else lines++;
+    }
+    c.report.segmentsAfter = { arcs, lines };
+    const m: MachineElement = {
+      index: c.model.index, label: c.label, group: strokeKey(c.model.style.stroke), toleranceMm: c.model.toleranceMm,
+      contours: fitted.contours.map((fc) => ({ segments: fc.segments, closed: fc.contour.closed })), original: c.original,
+    };
+    unplanned.set(c.model.index, m);
+    return m;
+  };
+  // Document order; a planned colour where its first element stood, its other elements nowhere else.
+  const assemble = (): MachineElement[] => cands.flatMap((c) => {
+    const g = memberOf.get(c.model.index);
+    if (g && active.has(g.anchor)) return g.anchor === c.model.index ? [g.element] : [];
+    return [single(c)];
+  });
+  const drawing = { pageHeightMm: doc.pageMm[1], elements: assemble(), source: file };
   const run = { format, tolerance: opts.tolerance, profile, origin: opts.machineOrigin, digits };
   let out = writeMachineFile(drawing, run);
-  const failed = new Set(out.proof.elements.filter((e) => !e.ok).map((e) => e.index));
+  const failing = (): Map<number, MachineElementProof> => new Map(out.proof.elements.filter((e) => !e.ok).map((e) => [e.index, e]));
+  let failed = failing();
+  const overGroups = groups.filter((g) => failed.has(g.anchor));
+  if (overGroups.length > 0) {
+    // As for SVG output: a colour over the tolerance is written unplanned, element by element.
+    for (const g of overGroups) {
+      const d = failed.get(g.anchor)!.deviation;
+      warnings.push(`plan: the ${g.group} group ${d ? `measured ${d.max.toPrecision(3)} mm, over the ${+opts.tolerance.toPrecision(6)} mm tolerance` : 'could not be measured'}; its elements are written one by one instead`);
+      active.delete(g.anchor);
+    }
+    drawing.elements = assemble();
+    out = writeMachineFile(drawing, run);
+    failed = failing();
+  }
+  const byIndex = new Map(cands.map((c) => [c.model.index, c]));
   if (failed.size > 0) {
     // As the SVG output keeps an original: the flattened polyline (within the flattening share) instead of the fit.
-    for (const m of elements) {
-      if (!failed.has(m.index)) continue;
-      const { model, report } = models.get(m.index)!;
-      const first = out.proof.elements.find((e) => e.index === m.index)!;
+    for (const m of drawing.elements) {
+      const first = failed.get(m.index);
+      if (!first || active.has(m.index)) continue;
+      const { model, report } = byIndex.get(m.index)!;
       m.contours = model.contours.map((c) => ({ segments: [], closed: c.closed, xy: c.xy }));
       setUnchanged(report, 'over-tolerance',
         `measured deviation ${first.deviation ? `${first.deviation.max.toPrecision(3)} mm` : '(none)'} of the fit is over the tolerance; written as straight moves through the original`);
@@ -158,17 +194,25 @@ export function refitToMachine(text: string, options: ArcsplineOptions = {}, fil
     out = writeMachineFile(drawing, run);
   }
   for (const e of out.proof.elements) {
-    const m = models.get(e.index);
-    if (!m) continue;
-    m.report.deviation = e.deviation;
-    if (m.report.status === 'reverted') continue;
-    if (e.ok && e.deviation === null) setUnchanged(m.report, 'nothing-to-measure', `draws only point marks, which are not written to the ${what} file`);
-    else if (e.ok) setRefitted(m.report);
-    else setUnchanged(m.report, 'over-tolerance', `measured deviation ${e.deviation ? `${e.deviation.max.toPrecision(3)} mm` : '(none)'} of the ${what} file is over the tolerance`);
+    const g = active.get(e.index);
+    for (const i of g ? g.members : [e.index]) {
+      const c = byIndex.get(i);
+      if (!c) continue;
+      const r = c.report;
+      r.deviation = e.deviation;
+      if (g) {
+        r.planGroup = g.group;
+        if (i === g.anchor) Object.assign(r, { segmentsAfter: g.segments, straightMovesNeeded: g.straightMovesNeeded });
+      }
+      if (r.status === 'reverted') continue;
+      if (e.ok && e.deviation === null) setUnchanged(r, 'nothing-to-measure', `draws only point marks, which are not written to the ${what} file`);
+      else if (e.ok) setRefitted(r);
+      else setUnchanged(r, 'over-tolerance', `measured deviation ${e.deviation ? `${e.deviation.max.toPrecision(3)} mm` : '(none)'} of the ${what} file is over the tolerance`);
+    }
   }
   for (const p of out.proof.problems) if (!/over the tolerance/.test(p)) warnings.push(`${what} file check: ${p}`);
   const straight = straightEstimate(
-    [...models.values()].map(({ model }) => ({
+    cands.map(({ model }) => ({
       index: model.index, label: '', group: strokeKey(model.style.stroke), polylines: model.contours.map((c) => ({ xy: c.xy, closed: c.closed })),
     })), doc.pageMm[1], profile, opts.machineOrigin,
   );
@@ -179,6 +223,7 @@ export function refitToMachine(text: string, options: ArcsplineOptions = {}, fil
     straight: { moves: straight.moves, seconds: straight.time.seconds },
   };
   report.machine = machine;
+  if (opts.plan) report.plan = planReport(groups.filter((g) => active.has(g.anchor)), home, planMs);
   // Geometry missing from the file is a failure like a deviation over the tolerance (exit status 1).
   if (!machine.checked) report.totals.withinTolerance = false;
   return { text: out.text, report, machine: out };

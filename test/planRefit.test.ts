@@ -140,10 +140,11 @@ describe('refitSvg with the plan', () => {
     expect(r.report.elements.every((e) => e.planGroup === undefined)).toBe(true);
   });
 
-  it('refuses the plan with baked transforms or machine output, naming the options', () => {
+  it('refuses the plan with baked transforms, naming the options; machine output takes it', () => {
     expect(() => refitSvg(doc(''), { plan: true, bakeTransforms: true })).toThrow(OptionError);
     expect(() => refitSvg(doc(''), { plan: true, bakeTransforms: true })).toThrow(/plan and bakeTransforms/);
     expect(() => refitSvg(doc(''), { plan: true, joinDistance: -1 })).toThrow(/joinDistance.*-1/);
-    expect(() => refitSvg(doc(''), { plan: true, format: 'gcode' })).toThrow(/plan writes SVG only for now, not gcode/);
+    // Machine output takes the plan (test/machine/plan.test.ts).
+    expect(() => refitSvg(doc(''), { plan: true, format: 'gcode' })).not.toThrow(OptionError);
   });
 });

@@ -41,6 +41,11 @@ export interface MachineElement {
   toleranceMm?: number;
   /** The original geometry (path data in user units and its matrix to page mm), measured against in the proof. */
   original: { path: PathData; toMm: Matrix };
+  /**
+   * More originals this element stands for (a planned group: every member element, a double line kept once
+   * counting as both): the proof measures the union of all of them against what is read back.
+   */
+  also?: { path: PathData; toMm: Matrix }[];
 }
 
 /** Where the machine origin sits on the page. */

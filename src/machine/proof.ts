@@ -57,7 +57,12 @@ export function proveMachine(elements: readonly MachineElement[], read: ReadBack
   for (const el of elements) {
     const tol = Math.min(tolMm, el.toleranceMm ?? tolMm);
     const toMachine = multiply(new Float64Array(6), pageToMachine, el.original.toMm);
-    const sa = samplePath(el.original.path, toMachine, spacing, chord, buf);
+    let sa = samplePath(el.original.path, toMachine, spacing, chord, el.also ? undefined : buf);
+    // A planned group is measured as a whole: the union of its members' originals.
+    for (const o of el.also ?? []) {
+      const s = samplePath(o.path, multiply(new Float64Array(6), pageToMachine, o.toMm), spacing, chord);
+      sa = { polylines: sa.polylines.concat(s.polylines), errorBound: Math.max(sa.errorBound, s.errorBound) };
+    }
     const rb = read.elements.get(el.index);
     const sb = { polylines: rb ? rb.polylines : [], errorBound: read.errorBound };
     const d = sa.polylines.length === 0 && sb.polylines.length === 0 ? null : compareSampled(sa, sb, toMachine, chord);
