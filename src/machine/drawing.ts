@@ -32,6 +32,8 @@ export interface MachineContour {
 export interface MachineElement {
   /** Position among the document's elements (the SVG report's `index`). */
   index: number;
+  /** The copy drawn by `<use>` this is (1, 2, …; the model's `copies` order), absent for the element where it stands. */
+  copy?: number;
   /** Short name for comments and messages, e.g. `path#edge`. */
   label: string;
   /** Group key: the element's computed stroke colour as `#rrggbb`, or `none`. Selects layer, power and feed. */
@@ -46,6 +48,19 @@ export interface MachineElement {
    * counting as both): the proof measures the union of all of them against what is read back.
    */
   also?: { path: PathData; toMm: Matrix }[];
+}
+
+/** More copies than any element lists (src/svg/reuse.ts lists at most 4096 each). */
+const COPY_SLOTS = 1 << 20;
+
+/**
+ * The key the read-back and the proof know a machine element by: its document index where it stands, and
+ * index + copy / 2^20 for a copy (unique, exact in a double, and its integer part is still the element).
+ */
+export function machineKey(index: number, copy?: number): number {
+  if (copy === undefined) return index;
+  if (!(copy >= 1 && copy < COPY_SLOTS && Number.isInteger(copy))) throw new RangeError(`copy must be an integer from 1 to ${COPY_SLOTS - 1}, got ${copy}`);
+  return index + copy / COPY_SLOTS;
 }
 
 /** Where the machine origin sits on the page. */
