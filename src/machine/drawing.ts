@@ -63,6 +63,12 @@ export function machineKey(index: number, copy?: number): number {
   return index + copy / COPY_SLOTS;
 }
 
+/** A machine key for people: `element 3` or `element 3 copy 2`. */
+export function keyName(key: number): string {
+  const index = Math.floor(key), copy = Math.round((key - index) * COPY_SLOTS);
+  return copy === 0 ? `element ${index}` : `element ${index} copy ${copy}`;
+}
+
 /** Where the machine origin sits on the page. */
 export type MachineOrigin = 'lower-left' | 'upper-left';
 

@@ -10,7 +10,7 @@ import { applyX, applyY, multiply } from '../svg/matrix.js';
 import type { Deviation } from '../report/types.js';
 import { SampleBuffer, samplePath } from '../measure/sample.js';
 import { compareSampled } from '../measure/measure.js';
-import { machineKey, type MachineElement } from './drawing.js';
+import { keyName, machineKey, type MachineElement } from './drawing.js';
 import type { ReadBack } from './readback.js';
 
 /** Chord error and distance resolution as a fraction of the tolerance (as the SVG measurement). */
@@ -89,7 +89,7 @@ export function proveMachine(elements: readonly MachineElement[], read: ReadBack
   for (const k of read.elements.keys()) {
     if (k >= 0 && !elements.some((e) => machineKey(e.index, e.copy) === k)) {
       out.ok = false;
-      out.problems.push(`the reader found moves for element ${k}, which the drawing does not have`);
+      out.problems.push(`the reader found moves for ${keyName(k)}, which the drawing does not have`);
     }
   }
   if (read.radiusMismatch > RADIUS_CHECK_MM) {
