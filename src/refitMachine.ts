@@ -7,33 +7,44 @@
  * original in machine coordinates.
  *
  * Every element that draws is written, circles, ellipses and rects included
- * (a machine file has no shapes: they become arcs). An element over its
+ * (a machine file has no shapes: they become arcs), and so is every copy a
+ * `<use>` draws (./machine/copies.ts: mapped, fitted and proven where it
+ * lands, grouped by its own stroke); geometry only copies draw (in defs or a
+ * symbol) is not written where it stands. With `plan`, stroke-only elements
+ * are planned per stroke colour and written in plan order
+ * (./machine/plan.ts), each colour proven as a whole. An element over its
  * tolerance after the fit is written as its flattened polyline instead
  * (status 'reverted', reason 'over-tolerance'), as the SVG output keeps its
- * original, and the file is written and proven again. Geometry that is not
- * drawn where it stands (in defs, hidden) is not written, and `<use>` copies
- * are not expanded, and point marks (subpaths that draw only a point) are
- * not written (warnings say so). An element that cannot be modelled
- * (too few decimals for its tolerance, cannot be flattened) is missing from
- * the file: a warning names it and the file fails its check (exit status 1).
+ * original, and the file is written and proven again; a planned colour over
+ * it is written unplanned first. Geometry that is not drawn (hidden) is not
+ * written, and point marks (subpaths that draw only a point) are not written
+ * (a warning says so). An element that cannot be modelled (too few decimals
+ * for its tolerance, cannot be flattened) is missing from the file: a
+ * warning names it and the file fails its check (exit status 1).
  */
 import { OptionError, resolveOptions, type ArcsplineOptions } from './options.js';
-import { readSvg } from './svg/document.js';
+import { readSvg, type GeometryElement } from './svg/document.js';
 import { drawingElementFromSvg, readGeometry } from './model/fromSvg.js';
 import { fitElement } from './model/fit.js';
-import type { DrawingElement } from './model/drawing.js';
 import { baseReport, untouchedReport } from './refitElement.js';
-import { copiesSummary, summarise, untouchedSummary } from './refitSummary.js';
+import { summarise, untouchedSummary } from './refitSummary.js';
 import { setRefitted, setUnchanged } from './report/status.js';
 import { elementTag } from './report/table.js';
 import type { ElementReport, FileReport, MachineSummary } from './report/types.js';
 import { arcGeometry } from './fit/segment.js';
-import { OP_A, OP_ARGS, OP_M, type PathData } from './svg/pathTypes.js';
 import { strokeKey } from './machine/colour.js';
+import { withoutPointSubpaths } from './machine/pointMarks.js';
+import { machineCopies, type MachineCopy } from './machine/copies.js';
+import { machineKey, type MachineContour } from './machine/drawing.js';
+import { elementVerdicts } from './machine/verdicts.js';
 import { MIN_MACHINE_DIGITS, machineDigits } from './machine/digits.js';
 import type { MachineElement } from './machine/drawing.js';
 import { loadProfile } from './machine/profile.js';
 import { straightEstimate, writeMachineFile, type MachineFile } from './machine/program.js';
+import type { MachineElementProof } from './machine/proof.js';
+import { planMachine, planReport, type MachineCandidate, type MachinePlanGroup } from './machine/plan.js';
+
+type Cand = MachineCandidate & { report: ElementReport; source: GeometryElement };
 
 /** What {@link refitToMachine} gives. */
 export interface MachineRefitResult {
@@ -47,35 +58,8 @@ export interface MachineRefitResult {
 
 const now = (): number => performance.now();
 
-/**
- * The path data without its subpaths that draw only a point (a pierce mark such as `M x y Z`): they are
- * not written to a machine file (a warning says so), so the proof measures against the rest.
- */
-export function withoutPointSubpaths(p: PathData): PathData {
-  const ops: number[] = [], args: number[] = [];
-  let i = 0, j = 0;
-  while (i < p.ops.length) {
-    // One subpath: from a moveto (or the start) up to the next moveto.
-    const i0 = i, j0 = j;
-    let still = true;
-    const sx = p.ops[i] === OP_M ? p.args[j] : NaN, sy = p.ops[i] === OP_M ? p.args[j + 1] : NaN;
-    do {
-      const op = p.ops[i], n = OP_ARGS[op];
-      if (op !== OP_M) {
-        const first = op === OP_A ? 5 : 0;
-        for (let k = first; k + 1 < n; k += 2) if (p.args[j + k] !== sx || p.args[j + k + 1] !== sy) still = false;
-      }
-      i++;
-      j += n;
-    } while (i < p.ops.length && p.ops[i] !== OP_M);
-    const draws = i - i0 > 1;
-    if (draws && still) continue;
-    for (let k = i0; k < i; k++) ops.push(p.ops[k]);
-    for (let k = j0; k < j; k++) args.push(p.args[k]);
-  }
-  return { ops: Uint8Array.from(ops), args: Float64Array.from(args) };
-}
-const USE_ELEMENT = /<(?:[A-Za-z_][\w.-]*:)?use[\s/>]/;
+export { withoutPointSubpaths } from './machine/pointMarks.js';
+
 
 /**
  * Refit an SVG document into a G-code or DXF file (`options.format`), with the
@@ -95,16 +79,13 @@ export function refitToMachine(text: string, options: ArcsplineOptions = {}, fil
   const warnings = doc.warnings.slice();
   const untouched = untouchedSummary(doc);
   if (untouched) warnings.push(untouched);
-  const copies = copiesSummary(doc, opts.tolerance);
-  if (copies) warnings.push(copies);
-  if (USE_ELEMENT.test(text)) warnings.push('<use> copies are not expanded into the machine file: only the geometry they refer to, where it stands, is written');
+  // No copy-factor warning as for SVG output: every copy is written, fitted and measured where it lands.
   // One number format for the whole file: enough decimals for the tightest element.
   let tightest = opts.tolerance;
   for (const el of doc.elements) if (el.rewritable) tightest = Math.min(tightest, opts.tolerance / Math.max(1, el.copyScale));
   const digits = opts.digits ?? machineDigits(tightest);
   const reports: ElementReport[] = [];
-  const elements: MachineElement[] = [];
-  const models = new Map<number, { model: DrawingElement; report: ElementReport }>();
+  const cands: Cand[] = [];
   const what = format === 'gcode' ? 'G-code' : 'DXF';
   let missing = 0, points = 0;
   for (const el of doc.elements) {
@@ -124,53 +105,126 @@ export function refitToMachine(text: string, options: ArcsplineOptions = {}, fil
       missing++;
       continue;
     }
-    const fitted = fitElement(model, opts.cornerAngle);
     points += model.points.length / 2;
-    let arcs = 0, lines = 0;
-    for (const c of fitted.contours) {
-      report.straightMovesNeeded += c.straightMovesNeeded;
-      for (const s of c.segments) if (arcGeometry(s)) arcs++; else lines++;
-    }
-    report.segmentsAfter = { arcs, lines };
-    elements.push({
-      index: el.index, label: el.id ? `${el.name}#${el.id}` : el.name, group: strokeKey(model.style.stroke), toleranceMm: tol,
-      contours: fitted.contours.map((c) => ({ segments: c.segments, closed: c.contour.closed })),
-      original: { path: model.points.length > 0 ? withoutPointSubpaths(p) : p, toMm: el.toMm },
-    });
-    models.set(el.index, { model, report });
+    const original = { path: model.points.length > 0 ? withoutPointSubpaths(p) : p, toMm: el.toMm };
+    cands.push({ model, report, label: el.id ? `${el.name}#${el.id}` : el.name, original, source: el });
   }
   if (points > 0) warnings.push(`${points === 1 ? '1 point mark (a subpath that draws only a point) is' : `${points} point marks (subpaths that draw only a point) are`} not written to the ${what} file`);
-  const drawing = { pageHeightMm: doc.pageMm[1], elements, source: file };
+  // The plan starts where the head waits: the machine origin, on the page.
+  const home: [number, number] = [0, opts.machineOrigin === 'lower-left' ? doc.pageMm[1] : 0];
+  const tPlan = now();
+  const groups = opts.plan ? planMachine(cands, opts, home) : [];
+  const planMs = now() - tPlan;
+  const active = new Map(groups.map((g) => [g.anchor, g]));
+  const memberOf = new Map<number, MachinePlanGroup>();
+  for (const g of groups) for (const i of g.members) memberOf.set(i, g);
+  const unplanned = new Map<number, MachineElement>();
+  /** By machine key: each written element's contours as straight moves, for one that measures over the tolerance. */
+  const straightOf = new Map<number, MachineContour[]>();
+  /** An element fitted on its own (its report says what the fit made). */
+  const single = (c: Cand): MachineElement => {
+    const have = unplanned.get(c.model.index);
+    if (have) return have;
+    const fitted = fitElement(c.model, opts.cornerAngle);
+    let arcs = 0, lines = 0;
+    for (const fc of fitted.contours) {
+      c.report.straightMovesNeeded += fc.straightMovesNeeded;
+      for (const s of fc.segments) if (arcGeometry(s)) arcs++; else lines++;
+    }
+    c.report.segmentsAfter = { arcs, lines };
+    const m: MachineElement = {
+      index: c.model.index, label: c.label, group: strokeKey(c.model.style.stroke), toleranceMm: c.model.toleranceMm,
+      contours: fitted.contours.map((fc) => ({ segments: fc.segments, closed: fc.contour.closed })), original: c.original,
+    };
+    unplanned.set(c.model.index, m);
+    straightOf.set(c.model.index, c.model.contours.map((ct) => ({ segments: [], closed: ct.closed, xy: ct.xy })));
+    return m;
+  };
+  const copied = new Map<number, MachineCopy[]>();
+  /** Every copy a `<use>` draws of an element, fitted where it lands (the report counts the first when the element is not drawn in place). */
+  const copiesOf = (c: Cand): MachineCopy[] => {
+    if (c.model.copies.length === 0) return [];
+    let have = copied.get(c.model.index);
+    if (have) return have;
+    have = machineCopies(c.model, c.source.copies, c.original.path, c.label, doc.rootToMm, opts.tolerance, opts.cornerAngle);
+    copied.set(c.model.index, have);
+    for (const k of have) straightOf.set(machineKey(k.element.index, k.element.copy), k.straight);
+    if (!c.model.inPlace) c.report.segmentsAfter = have[0].segments;
+    const clipped = have.filter((k) => k.clipped).length;
+    if (clipped > 0) warnings.push(`${c.label}: ${clipped === 1 ? '1 copy reaches' : `${clipped} copies reach`} outside the viewport that clips it in SVG; the ${what} file draws the whole geometry`);
+    return have;
+  };
+  // Painting order: an element where it stands (unless only copies draw it), a copy where its <use> stands,
+  // a planned colour where its first element stood and its other elements nowhere else.
+  const assemble = (): MachineElement[] => {
+    const placed: { m: MachineElement; at: number }[] = [];
+    for (const c of cands) {
+      const g = memberOf.get(c.model.index);
+      if (g && active.has(g.anchor)) {
+        if (g.anchor === c.model.index) placed.push({ m: g.element, at: g.anchor });
+        continue;
+      }
+      if (c.model.inPlace) placed.push({ m: single(c), at: c.model.index });
+      for (const k of copiesOf(c)) placed.push({ m: k.element, at: k.use });
+    }
+    return placed.sort((a, b) => a.at - b.at).map((p) => p.m);
+  };
+  const drawing = { pageHeightMm: doc.pageMm[1], elements: assemble(), source: file };
   const run = { format, tolerance: opts.tolerance, profile, origin: opts.machineOrigin, digits };
   let out = writeMachineFile(drawing, run);
-  const failed = new Set(out.proof.elements.filter((e) => !e.ok).map((e) => e.index));
+  const failing = (): Map<number, MachineElementProof> => new Map(out.proof.elements.filter((e) => !e.ok).map((e) => [machineKey(e.index, e.copy), e]));
+  let failed = failing();
+  const overGroups = groups.filter((g) => failed.has(g.anchor));
+  if (overGroups.length > 0) {
+    // As for SVG output: a colour over the tolerance is written unplanned, element by element.
+    for (const g of overGroups) {
+      const d = failed.get(g.anchor)!.deviation;
+      warnings.push(`plan: the ${g.group} group ${d ? `measured ${d.max.toPrecision(3)} mm, over the ${+opts.tolerance.toPrecision(6)} mm tolerance` : 'could not be measured'}; its elements are written one by one instead`);
+      active.delete(g.anchor);
+    }
+    drawing.elements = assemble();
+    out = writeMachineFile(drawing, run);
+    failed = failing();
+  }
+  const byIndex = new Map(cands.map((c) => [c.model.index, c]));
   if (failed.size > 0) {
     // As the SVG output keeps an original: the flattened polyline (within the flattening share) instead of the fit.
-    for (const m of elements) {
-      if (!failed.has(m.index)) continue;
-      const { model, report } = models.get(m.index)!;
-      const first = out.proof.elements.find((e) => e.index === m.index)!;
-      m.contours = model.contours.map((c) => ({ segments: [], closed: c.closed, xy: c.xy }));
+    for (const m of drawing.elements) {
+      const key = machineKey(m.index, m.copy), first = failed.get(key);
+      if (!first || (m.copy === undefined && active.has(m.index))) continue;
+      const { report } = byIndex.get(m.index)!;
+      m.contours = straightOf.get(key)!;
       setUnchanged(report, 'over-tolerance',
-        `measured deviation ${first.deviation ? `${first.deviation.max.toPrecision(3)} mm` : '(none)'} of the fit is over the tolerance; written as straight moves through the original`);
+        `${m.copy ? `copy ${m.copy}: ` : ''}measured deviation ${first.deviation ? `${first.deviation.max.toPrecision(3)} mm` : '(none)'} of the fit is over the tolerance; written as straight moves through the original`);
       report.segmentsAfter = { arcs: 0, lines: 0 };
     }
     out = writeMachineFile(drawing, run);
   }
-  for (const e of out.proof.elements) {
-    const m = models.get(e.index);
-    if (!m) continue;
-    m.report.deviation = e.deviation;
-    if (m.report.status === 'reverted') continue;
-    if (e.ok && e.deviation === null) setUnchanged(m.report, 'nothing-to-measure', `draws only point marks, which are not written to the ${what} file`);
-    else if (e.ok) setRefitted(m.report);
-    else setUnchanged(m.report, 'over-tolerance', `measured deviation ${e.deviation ? `${e.deviation.max.toPrecision(3)} mm` : '(none)'} of the ${what} file is over the tolerance`);
+  for (const e of elementVerdicts(out.proof.elements)) {
+    const g = active.get(e.index);
+    for (const i of g ? g.members : [e.index]) {
+      const c = byIndex.get(i);
+      if (!c) continue;
+      const r = c.report;
+      r.deviation = e.deviation;
+      if (g) {
+        r.planGroup = g.group;
+        if (i === g.anchor) Object.assign(r, { segmentsAfter: g.segments, straightMovesNeeded: g.straightMovesNeeded });
+      }
+      if (r.status === 'reverted') continue;
+      if (e.ok && e.deviation === null) setUnchanged(r, 'nothing-to-measure', `draws only point marks, which are not written to the ${what} file`);
+      else if (e.ok) setRefitted(r);
+      else setUnchanged(r, 'over-tolerance', `${e.where}measured deviation ${e.deviation ? `${e.deviation.max.toPrecision(3)} mm` : '(none)'} of the ${what} file is over the tolerance`);
+    }
   }
   for (const p of out.proof.problems) if (!/over the tolerance/.test(p)) warnings.push(`${what} file check: ${p}`);
+  // The baseline: the same drawing in the same order (each copy, each planned contour) as straight moves through the flattened contours.
   const straight = straightEstimate(
-    [...models.values()].map(({ model }) => ({
-      index: model.index, label: '', group: strokeKey(model.style.stroke), polylines: model.contours.map((c) => ({ xy: c.xy, closed: c.closed })),
-    })), doc.pageMm[1], profile, opts.machineOrigin,
+    drawing.elements.map((m) => {
+      const g = m.copy === undefined ? active.get(m.index) : undefined;
+      const polylines = g ? g.planned : straightOf.get(machineKey(m.index, m.copy))!.map((c) => ({ xy: c.xy!, closed: c.closed }));
+      return { index: m.index, label: '', group: m.group, polylines };
+    }), doc.pageMm[1], profile, opts.machineOrigin,
   );
   const report = summarise(reports, opts.tolerance, text, out.text, warnings, file, now() - t0);
   const machine: MachineSummary = {
@@ -179,6 +233,7 @@ export function refitToMachine(text: string, options: ArcsplineOptions = {}, fil
     straight: { moves: straight.moves, seconds: straight.time.seconds },
   };
   report.machine = machine;
+  if (opts.plan) report.plan = planReport(groups.filter((g) => active.has(g.anchor)), home, planMs);
   // Geometry missing from the file is a failure like a deviation over the tolerance (exit status 1).
   if (!machine.checked) report.totals.withinTolerance = false;
   return { text: out.text, report, machine: out };

@@ -8,6 +8,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { Ajv2020 } from 'ajv/dist/2020.js';
 import { refitSvg } from '../src/refit.js';
+import { refitToMachine } from '../src/refitMachine.js';
 import { OptionError } from '../src/options.js';
 import { parsePathData } from '../src/svg/pathData.js';
 import type { FileReport } from '../src/report/types.js';
@@ -140,10 +141,12 @@ describe('refitSvg with the plan', () => {
     expect(r.report.elements.every((e) => e.planGroup === undefined)).toBe(true);
   });
 
-  it('refuses the plan with baked transforms or machine output, naming the options', () => {
+  it('refuses the plan with baked transforms, naming the options; machine output takes it', () => {
     expect(() => refitSvg(doc(''), { plan: true, bakeTransforms: true })).toThrow(OptionError);
     expect(() => refitSvg(doc(''), { plan: true, bakeTransforms: true })).toThrow(/plan and bakeTransforms/);
     expect(() => refitSvg(doc(''), { plan: true, joinDistance: -1 })).toThrow(/joinDistance.*-1/);
-    expect(() => refitSvg(doc(''), { plan: true, format: 'gcode' })).toThrow(/plan writes SVG only for now, not gcode/);
+    // Machine output takes the plan (more in test/machine/plan.test.ts): two red lines meeting end to end, one pierce.
+    const m = refitToMachine(doc('  <path d="M0 0L50 0" stroke="red" fill="none"/>\n  <path d="M50 0L100 0" stroke="red" fill="none"/>\n'), { plan: true, format: 'gcode' });
+    expect([m.report.plan!.piercesBefore, m.report.plan!.piercesAfter]).toEqual([2, 1]);
   });
 });

@@ -100,7 +100,7 @@ function machineSummaryLine(name: string, report: FileReport, m: MachineSummary,
   const time = `est. ${m.seconds.toFixed(1)} s (as ${m.straight.moves} straight moves ${m.straight.seconds.toFixed(1)} s, profile ${m.profile})`;
   const overText = over > 0 ? paint.red(`; ${countOf(over, 'element')} over the tolerance written as straight moves`) : '';
   const checked = m.checked ? paint.green(dev) : paint.red(`${dev}; the check found problems`);
-  return `${paint.bold(name)}: ${what} ${countOf(m.lines, 'line')} (${moves}) from ${countOf(t.elements, 'element')}, ${checked}, ${time}${overText}`;
+  return `${paint.bold(name)}: ${what} ${countOf(m.lines, 'line')} (${moves}) from ${countOf(t.elements, 'element')}, ${checked}, ${time}${planText(report)}${overText}`;
 }
 
 /** A length of travel or line for reading: mm below a metre, m above. */

@@ -32,6 +32,8 @@ export interface MachineContour {
 export interface MachineElement {
   /** Position among the document's elements (the SVG report's `index`). */
   index: number;
+  /** The copy drawn by `<use>` this is (1, 2, …; the model's `copies` order), absent for the element where it stands. */
+  copy?: number;
   /** Short name for comments and messages, e.g. `path#edge`. */
   label: string;
   /** Group key: the element's computed stroke colour as `#rrggbb`, or `none`. Selects layer, power and feed. */
@@ -41,6 +43,30 @@ export interface MachineElement {
   toleranceMm?: number;
   /** The original geometry (path data in user units and its matrix to page mm), measured against in the proof. */
   original: { path: PathData; toMm: Matrix };
+  /**
+   * More originals this element stands for (a planned group: every member element, a double line kept once
+   * counting as both): the proof measures the union of all of them against what is read back.
+   */
+  also?: { path: PathData; toMm: Matrix }[];
+}
+
+/** More copies than any element lists (src/svg/reuse.ts lists at most 4096 each). */
+const COPY_SLOTS = 1 << 20;
+
+/**
+ * The key the read-back and the proof know a machine element by: its document index where it stands, and
+ * index + copy / 2^20 for a copy (unique, exact in a double, and its integer part is still the element).
+ */
+export function machineKey(index: number, copy?: number): number {
+  if (copy === undefined) return index;
+  if (!(copy >= 1 && copy < COPY_SLOTS && Number.isInteger(copy))) throw new RangeError(`copy must be an integer from 1 to ${COPY_SLOTS - 1}, got ${copy}`);
+  return index + copy / COPY_SLOTS;
+}
+
+/** A machine key for people: `element 3` or `element 3 copy 2`. */
+export function keyName(key: number): string {
+  const index = Math.floor(key), copy = Math.round((key - index) * COPY_SLOTS);
+  return copy === 0 ? `element ${index}` : `element ${index} copy ${copy}`;
 }
 
 /** Where the machine origin sits on the page. */

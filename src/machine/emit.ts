@@ -40,7 +40,7 @@ export function emitMachine(sink: MachineSink, elements: readonly MachineElement
   const Y = (x: number, y: number): number => b * x + d * y + f;
   const mirror = a * d - b * c < 0;
   for (const el of elements) {
-    sink.beginElement({ index: el.index, label: el.label, group: el.group });
+    sink.beginElement({ index: el.index, ...(el.copy ? { copy: el.copy } : {}), label: el.label, group: el.group });
     for (const ct of el.contours) {
       if (ct.xy) {
         polyline(sink, ct.xy, ct.closed, m, stats);

@@ -10,7 +10,7 @@ import { applyX, applyY, multiply } from '../svg/matrix.js';
 import type { Deviation } from '../report/types.js';
 import { SampleBuffer, samplePath } from '../measure/sample.js';
 import { compareSampled } from '../measure/measure.js';
-import type { MachineElement } from './drawing.js';
+import { keyName, machineKey, type MachineElement } from './drawing.js';
 import type { ReadBack } from './readback.js';
 
 /** Chord error and distance resolution as a fraction of the tolerance (as the SVG measurement). */
@@ -21,6 +21,8 @@ export const PROOF_SPACING_FACTOR = 2;
 /** The verdict on one element. */
 export interface MachineElementProof {
   index: number;
+  /** The copy (1, 2, …) this verdict is on, absent for the element where it stands. */
+  copy?: number;
   label: string;
   /** Null when the reader found nothing drawn for an element that draws something (or the reverse). */
   deviation: Deviation | null;
@@ -57,15 +59,20 @@ export function proveMachine(elements: readonly MachineElement[], read: ReadBack
   for (const el of elements) {
     const tol = Math.min(tolMm, el.toleranceMm ?? tolMm);
     const toMachine = multiply(new Float64Array(6), pageToMachine, el.original.toMm);
-    const sa = samplePath(el.original.path, toMachine, spacing, chord, buf);
-    const rb = read.elements.get(el.index);
+    let sa = samplePath(el.original.path, toMachine, spacing, chord, el.also ? undefined : buf);
+    // A planned group is measured as a whole: the union of its members' originals.
+    for (const o of el.also ?? []) {
+      const s = samplePath(o.path, multiply(new Float64Array(6), pageToMachine, o.toMm), spacing, chord);
+      sa = { polylines: sa.polylines.concat(s.polylines), errorBound: Math.max(sa.errorBound, s.errorBound) };
+    }
+    const rb = read.elements.get(machineKey(el.index, el.copy));
     const sb = { polylines: rb ? rb.polylines : [], errorBound: read.errorBound };
     const d = sa.polylines.length === 0 && sb.polylines.length === 0 ? null : compareSampled(sa, sb, toMachine, chord);
     // The report locates the worst spot on the page (y down), as for SVG output: the flip is its own inverse.
     if (d) d.worstMm = [applyX(pageToMachine, d.worstMm[0], d.worstMm[1]), applyY(pageToMachine, d.worstMm[0], d.worstMm[1])];
     const drawsNothing = sa.polylines.length === 0 && sb.polylines.length === 0;
     const ok = drawsNothing || (d !== null && d.max <= tol);
-    out.elements.push({ index: el.index, label: el.label, deviation: d, ok });
+    out.elements.push({ index: el.index, ...(el.copy ? { copy: el.copy } : {}), label: el.label, deviation: d, ok });
     if (d && d.max > out.maxDeviation) out.maxDeviation = d.max;
     if (!ok) {
       out.ok = false;
@@ -80,9 +87,9 @@ export function proveMachine(elements: readonly MachineElement[], read: ReadBack
     out.problems.push(`${stray.polylines.length} work moves outside any element`);
   }
   for (const k of read.elements.keys()) {
-    if (k >= 0 && !elements.some((e) => e.index === k)) {
+    if (k >= 0 && !elements.some((e) => machineKey(e.index, e.copy) === k)) {
       out.ok = false;
-      out.problems.push(`the reader found moves for element ${k}, which the drawing does not have`);
+      out.problems.push(`the reader found moves for ${keyName(k)}, which the drawing does not have`);
     }
   }
   if (read.radiusMismatch > RADIUS_CHECK_MM) {

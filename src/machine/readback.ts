@@ -22,6 +22,7 @@
 import { createRequire } from 'node:module';
 import type Toolpath from 'gcode-toolpath';
 import type { DxfSpan } from '../write/dxf.js';
+import { machineKey } from './drawing.js';
 
 // The readers load on first use (both are CommonJS), so `import 'arcspline'` does not pay for them (7 ms, median of 9 runs).
 const requireCjs = createRequire(import.meta.url);
@@ -39,7 +40,7 @@ export interface ReadElement {
 
 /** The read-back of a whole file. */
 export interface ReadBack {
-  /** By element index; index −1 collects work moves outside any element. */
+  /** By machine key (./drawing.ts machineKey: the element index, a copy's with a fraction); −1 collects work moves outside any element. */
   elements: Map<number, ReadElement>;
   /** mm: every chord is within this of the curve it stands for (lines are exact). */
   errorBound: number;
@@ -104,7 +105,7 @@ function sweepOf(a0: number, a1: number, ccw: boolean): number {
   return ccw ? s : -s;
 }
 
-const ELEMENT_COMMENT = /^element (\d+)\b/;
+const ELEMENT_COMMENT = /^element (\d+)(?: copy (\d+))?\b/;
 
 /**
  * Read G-code back.
@@ -134,7 +135,7 @@ export function readBackGcode(text: string, chord: number, spacing: number): Rea
   tp.loadFromStringSync(text, (data) => {
     for (const c of data.comments ?? []) {
       const m = ELEMENT_COMMENT.exec(c);
-      if (m) current = Number(m[1]);
+      if (m) current = machineKey(Number(m[1]), m[2] === undefined ? undefined : Number(m[2]));
     }
   });
   return { elements, errorBound: chord, radiusMismatch, moves, units: null };
@@ -157,8 +158,8 @@ export function readBackDxf(text: string, spans: readonly DxfSpan[], chord: numb
   const Parser = DxfReader();
   const dxf = new Parser().parseSync(text) as unknown as { entities: DxfEntity[]; header?: Record<string, unknown> } | null;
   if (!dxf) throw new Error('the DXF reader returned nothing');
-  const owner = new Int32Array(dxf.entities.length).fill(-1);
-  for (const s of spans) for (let k = s.first; k < s.first + s.count && k < owner.length; k++) owner[k] = s.index;
+  const owner = new Float64Array(dxf.entities.length).fill(-1);
+  for (const s of spans) for (let k = s.first; k < s.first + s.count && k < owner.length; k++) owner[k] = s.key;
   const elements = new Map<number, ReadElement>();
   let moves = 0;
   dxf.entities.forEach((e, k) => {

@@ -10,6 +10,8 @@
 export interface MachineGroupStart {
   /** Element index in the document. */
   index: number;
+  /** The copy drawn by `<use>` these moves draw (1, 2, … in the element's list of copies), or absent for the element where it stands. */
+  copy?: number;
   /** Element name for comments, e.g. `path#edge`. */
   label: string;
   /** Stroke colour key (`#rrggbb` or `none`): layer, power and feed. */

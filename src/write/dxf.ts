@@ -19,10 +19,11 @@ import type { MachineGroupStart, MachineSink } from '../machine/sink.js';
 import { arcOnRoundedChord } from '../machine/roundedArc.js';
 import { angleDigits, formatNumber } from './numbers.js';
 import { gcodeNumber } from './gcode.js';
+import { machineKey } from '../machine/drawing.js';
 
-/** Which entities (index range in the ENTITIES section, in order) draw one element. */
+/** Which entities (index range in the ENTITIES section, in order) draw one element (`key`: ../machine/drawing.ts machineKey). */
 export interface DxfSpan {
-  index: number;
+  key: number;
   first: number;
   count: number;
 }
@@ -85,7 +86,7 @@ export class DxfWriter implements MachineSink {
   beginElement(el: MachineGroupStart): void {
     this.layer = layerName(el.group);
     if (!this.layers.has(this.layer)) this.layers.set(this.layer, aciOf(el.group));
-    this.spans.push({ index: el.index, first: this.count, count: 0 });
+    this.spans.push({ key: machineKey(el.index, el.copy), first: this.count, count: 0 });
   }
 
   moveTo(x: number, y: number): void {

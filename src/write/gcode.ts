@@ -97,7 +97,7 @@ export class GcodeWriter implements MachineSink {
     if (this.toolOn && (s.power !== this.power || s.feed !== this.feed)) this.tool(false);
     this.power = s.power;
     this.feed = s.feed;
-    this.out.push(`(${commentText(`element ${el.index} ${el.label} stroke ${el.group}`)})`);
+    this.out.push(`(${commentText(`element ${el.index}${el.copy ? ` copy ${el.copy}` : ''} ${el.label} stroke ${el.group}`)})`);
   }
 
   moveTo(x: number, y: number): void {

@@ -45,6 +45,17 @@ describe('machine output from the command line', () => {
     expect(r.stderr).toMatch(/bracket\.svg: G-code \d+ lines \(\d+ arcs, \d+ lines, \d+ travels\) from 7 elements, read back: max deviation [\d.]+ mm ≤ 0\.1 mm, est\. [\d.]+ s \(as \d+ straight moves [\d.]+ s, profile laser\)/);
   });
 
+  it('--plan with -o part.gcode plans the file: the report carries `plan`, the summary its figures', async () => {
+    // Three strokes of one colour meeting end to end: joined into one contour, one pierce (our own scenario).
+    writeFileSync(at('zig.svg'), '<svg xmlns="http://www.w3.org/2000/svg" width="100mm" height="100mm" viewBox="0 0 100 100">' +
+      '<path d="M10 10L50 10" fill="none" stroke="#000"/><path d="M90 50L50 10" fill="none" stroke="#000"/><path d="M90 50L90 90" fill="none" stroke="#000"/></svg>');
+    const r = await run([at('zig.svg'), '--plan', '-o', at('zig.gcode'), '--report', at('r.json')]);
+    expect(r.code).toBe(EXIT_OK);
+    const report = JSON.parse(readFileSync(at('r.json'), 'utf8')) as FileReport;
+    expect([report.plan!.piercesBefore, report.plan!.piercesAfter, report.plan!.contoursJoined]).toEqual([3, 1, 2]);
+    expect(r.stderr).toMatch(/zig\.svg: G-code .* profile laser\); plan: travel [\d.]+ mm → [\d.]+ mm, 3 → 1 pierce, 2 joined/);
+  });
+
   it('.nc and .ngc are G-code, .dxf is DXF; --format dxf to standard output', async () => {
     expect([formatOfOutputName('a.NC'), formatOfOutputName('a.ngc'), formatOfOutputName('a.dxf'), formatOfOutputName('a.svgz'), formatOfOutputName('a.txt')])
       .toEqual(['gcode', 'gcode', 'dxf', 'svg', null]);

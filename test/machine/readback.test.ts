@@ -6,6 +6,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { arcPoints, readBackGcode } from '../../src/machine/readback.js';
+import { keyName, machineKey } from '../../src/machine/drawing.js';
 
 /** Largest distance from chord midpoints to the curve r(θ) = r0 + (r1 − r0)·t about c. */
 function worstChord(pts: Float64Array, cx: number, cy: number, r0: number, r1: number, a0: number, sweep: number): number {
@@ -43,5 +44,11 @@ describe('read-back sampling', () => {
     for (let i = 0; i < circle.length; i += 2) minX = Math.min(minX, circle[i]);
     expect(minX).toBeCloseTo(-5, 3);
     expect(rb.moves).toBe(2);
+  });
+  it('a copy\'s comment routes its moves to the copy, apart from the element where it stands', () => {
+    const rb = readBackGcode('G21 G90 G17\nG0 X0 Y0\n(element 4 path#a)\nG1 X1 Y0 F100\n(element 4 copy 2 path#a copy 2)\nG1 X2 Y0\n', 0.001, 1);
+    expect([...rb.elements.keys()]).toEqual([machineKey(4), machineKey(4, 2)]);
+    expect([keyName(machineKey(4)), keyName(machineKey(4, 2)), keyName(machineKey(4, 4095))]).toEqual(['element 4', 'element 4 copy 2', 'element 4 copy 4095']);
+    expect(() => machineKey(4, 0)).toThrow(/copy must be an integer.*got 0/);
   });
 });

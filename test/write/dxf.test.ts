@@ -66,7 +66,7 @@ describe('DXF writer', () => {
     expect(Object.keys(d.tables.layer.layers).sort()).toEqual(['STROKE_000000', 'STROKE_FF0000']);
     expect(d.tables.layer.layers.STROKE_FF0000.colorIndex).toBe(1);
     expect(d.entities.map((e: any) => e.layer)).toEqual(['STROKE_FF0000', 'STROKE_000000', 'STROKE_FF0000']);
-    expect(w.spans).toEqual([{ index: 1, first: 0, count: 1 }, { index: 2, first: 1, count: 1 }, { index: 3, first: 2, count: 1 }]);
+    expect(w.spans).toEqual([{ key: 1, first: 0, count: 1 }, { key: 2, first: 1, count: 1 }, { key: 3, first: 2, count: 1 }]);
   });
 
   it('only R12 entities: LINE and ARC, no handles or subclass markers', () => {
