@@ -15,49 +15,20 @@
  */
 import simplify from 'simplify-js';
 import { refitSvg } from '../src/refit.js';
-import { readSvg, type GeometryElement } from '../src/svg/document.js';
-import { parsePathData } from '../src/svg/pathData.js';
-import { shapeToPath } from '../src/svg/shapes.js';
-import { OP_ARGS, OP_M, OP_Z, type PathData } from '../src/svg/pathTypes.js';
+import { readSvg } from '../src/svg/document.js';
 import { flattenPath } from '../src/geom/flatten.js';
 import { realCorpus, type RealClass } from '../test/realdata/corpus.js';
 import { fmt } from './stats.js';
+import { drawnPieces, readGeometry } from '../src/model/fromSvg.js';
 
 const TOLERANCES = [0.02, 0.05, 0.1];
 const READ = { assumedMmPerUnit: 1 };
-
-function pathOf(el: GeometryElement): PathData | null {
-  if (el.name === 'path') return parsePathData(el.attrs.d ?? '');
-  return shapeToPath(el.name, (a) => el.attrs[a], el.viewportW, el.viewportH).path;
-}
-
-/** Drawn segments of path data, a Z counted when it draws a closing line. */
-export function drawnPieces(p: PathData): number {
-  let n = 0, j = 0, sx = 0, sy = 0, cx = 0, cy = 0;
-  for (let i = 0; i < p.ops.length; i++) {
-    const op = p.ops[i], k = OP_ARGS[op];
-    if (op === OP_M) {
-      sx = cx = p.args[j];
-      sy = cy = p.args[j + 1];
-    } else if (op === OP_Z) {
-      if (cx !== sx || cy !== sy) n++;
-      cx = sx;
-      cy = sy;
-    } else {
-      n++;
-      cx = p.args[j + k - 2];
-      cy = p.args[j + k - 1];
-    }
-    j += k;
-  }
-  return n;
-}
 
 /** Pieces drawn by every rewritable element of a document. */
 function documentPieces(svg: string): number {
   let n = 0;
   for (const el of readSvg(svg, READ).elements) {
-    const p = el.rewritable ? pathOf(el) : null;
+    const p = el.rewritable ? readGeometry(el, []) : null;
     if (p) n += drawnPieces(p);
   }
   return n;
@@ -67,7 +38,7 @@ function documentPieces(svg: string): number {
 function rdpLines(svg: string, tol: number): number {
   let n = 0;
   for (const el of readSvg(svg, READ).elements) {
-    const p = el.rewritable ? pathOf(el) : null;
+    const p = el.rewritable ? readGeometry(el, []) : null;
     if (!p) continue;
     for (const c of flattenPath(p, el.toMm, 0.05 * tol)) {
       const pts: { x: number; y: number }[] = [];

@@ -70,7 +70,7 @@ function copiesOf(el: GeometryElement): DrawingCopy[] {
 }
 
 /** Pieces a subpath draws: every segment, and a Z when it draws a closing line (its current point is not the start). */
-function drawnPieces(p: PathData): number {
+export function drawnPieces(p: PathData): number {
   let n = 0, j = 0, sx = 0, sy = 0, cx = 0, cy = 0;
   for (let i = 0; i < p.ops.length; i++) {
     const op = p.ops[i], k = OP_ARGS[op];
