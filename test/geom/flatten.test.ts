@@ -371,7 +371,7 @@ describe('flattenPath: corners', () => {
 });
 
 describe('flattenPath: performance', () => {
-  it('1,000,000 line segments flatten well under a second', () => {
+  it('1,000,000 line segments flatten to one contour of every vertex', () => {
     const N = 1_000_000;
     const ops = new Uint8Array(N + 1);
     const args = new Float64Array(2 * (N + 1));
@@ -384,18 +384,12 @@ describe('flattenPath: performance', () => {
     }
     const p: PathData = { ops, args };
     const M = m6(0.26, 0, 0, 0.26, 1, 2);
-    flattenPath(p, M, 0.01); // warm-up
-    const times: number[] = [];
-    let checksum = 0;
-    for (let rep = 0; rep < 5; rep++) {
-      const t0 = performance.now();
-      const out = flattenPath(p, M, 0.01);
-      times.push(performance.now() - t0);
-      checksum += out[0].xy.length + out[0].xy[out[0].xy.length - 1];
-    }
-    times.sort((a, b) => a - b);
-    expect(checksum).toBeGreaterThan(5 * 2 * N);
-    // best of 5 (other processes share the machine); about 30 ms when idle
-    expect(times[0]).toBeLessThan(300);
+    // Its speed is benchmarked (npm run bench: the pipeline's flatten stage), not timed here.
+    const out = flattenPath(p, M, 0.01);
+    expect(out.length).toBe(1);
+    expect(out[0].xy.length).toBe(2 * (N + 1));
+    // The last vertex is the last point through M = [0.26 0 0 0.26 1 2].
+    expect(out[0].xy[2 * N]).toBeCloseTo(0.26 * args[2 * N] + 1, 9);
+    expect(out[0].xy[2 * N + 1]).toBeCloseTo(0.26 * args[2 * N + 1] + 2, 9);
   });
 });

@@ -1,5 +1,4 @@
 import { describe, expect, it } from 'vitest';
-import { SaxesParser } from 'saxes';
 import { readSvg, type GeometryElement } from '../../src/svg/document.js';
 import { lineColumnAt, SvgInputError } from '../../src/svg/errors.js';
 
@@ -181,7 +180,7 @@ describe('readSvg: size and depth', () => {
     expect(d.elements[0].ancestors.startsWith('svg > … > g')).toBe(true);
   });
 
-  it('reads 18 MB with 400 paths well under a second beyond saxes itself', () => {
+  it('reads 18 MB with 400 paths, each found once', () => {
     // Seeded LCG so the file is the same every run.
     let seed = 12345;
     const rnd = (): number => ((seed = (seed * 1103515245 + 12345) >>> 0) / 4294967296) * 1000;
@@ -194,25 +193,8 @@ describe('readSvg: size and depth', () => {
     parts.push('</svg>');
     const text = parts.join('\n');
     expect(text.length).toBeGreaterThan(18_000_000);
-    const time = (f: () => void): number => {
-      let best = Infinity;
-      for (let r = 0; r < 3; r++) {
-        const t0 = performance.now();
-        f();
-        best = Math.min(best, performance.now() - t0);
-      }
-      return best;
-    };
-    const bare = time(() => {
-      const p = new SaxesParser({ xmlns: false });
-      p.on('opentag', () => {});
-      p.write(text).close();
-    });
-    let n = 0;
-    const ours = time(() => {
-      n = readSvg(text, OPTS).elements.length;
-    });
+    // Its speed is benchmarked (npm run bench: the pipeline's parse stage), not timed here.
+    const n = readSvg(text, OPTS).elements.length;
     expect(n).toBe(400);
-    expect(ours - bare).toBeLessThan(500);
   });
 });
