@@ -18,7 +18,7 @@ import { readMark } from './write/refitMark.js';
 import type { Edit } from './write/document.js';
 import { measureDeviation } from './measure/measure.js';
 import { setRefitted, setUnchanged } from './report/status.js';
-import type { ElementReport } from './report/types.js';
+import type { ContourReport, ElementReport } from './report/types.js';
 import type { StageTimes } from './refit.js';
 
 const now = (): number => performance.now();
@@ -95,6 +95,11 @@ export function closingLines(f: FittedElement): number {
   return n;
 }
 
+/** Each contour's outcome for the report. */
+function contourReports(f: FittedElement): ContourReport[] {
+  return f.contours.map((c) => ({ status: c.outcome.status, reason: c.outcome.reason, as: c.choice }));
+}
+
 const EXACT_SHAPES = new Set(['rect', 'circle', 'ellipse', 'line']);
 
 /** Refit one rewritable element; null when it draws nothing. Warnings go to `warnings`. */
@@ -108,7 +113,10 @@ export function refitElement(
   const report = baseReport(el, p);
   const unchanged = (reason: Parameters<typeof setUnchanged>[1], message: string, fitted: FittedElement | null = null): ElementResult => {
     setUnchanged(report, reason, message);
-    if (fitted) setContourOutcomes(fitted, report.status, reason);
+    if (fitted) {
+      setContourOutcomes(fitted, report.status, reason);
+      report.contours = contourReports(fitted);
+    }
     return { report, edits: null, fitted, droppedEditorAttrs: [] };
   };
   if (EXACT_SHAPES.has(el.name) && !opts.shapesAsPaths && !opts.bakeTransforms) {
@@ -176,6 +184,7 @@ export function refitElement(
       return unchanged('over-tolerance', `measured deviation ${report.deviation.max.toPrecision(3)} mm is over the tolerance`, fitted);
     }
     setRefitted(report);
+    report.contours = contourReports(fitted);
     const { edits, droppedEditorAttrs } = svgElementEdits(doc, el, d, opts.bakeTransforms, elTol);
     return { report, edits, fitted, droppedEditorAttrs };
   }

@@ -71,6 +71,17 @@ export interface ElementReport {
   copies: number;
   /** With the path plan: the stroke group whose planned contours draw this element (its deviation is the group's). */
   planGroup?: string;
+  /** Each subpath's outcome, in source order, when the element was fitted (absent when it was kept before fitting). */
+  contours?: ContourReport[];
+}
+
+/** What became of one subpath (contour) of an element. */
+export interface ContourReport {
+  /** Refitted, or kept as written (reason `no-shorter`: nothing fitted is shorter), or as its element was reverted. */
+  status: OutcomeStatus;
+  reason: OutcomeReason | null;
+  /** What it is written as: `spline` (arcs and lines), `lines` (straight moves through its own vertices) or `original` (its commands as written). */
+  as: 'spline' | 'lines' | 'original';
 }
 
 /** How an element is painted: what cutters and plotters map to operations (cut, score, engrave; pen 1, 2). */

@@ -60,6 +60,8 @@ export const SMALL = `<svg xmlns="http://www.w3.org/2000/svg" width="100mm" heig
 export const FILE_REPORT_KEYS = ['tool', 'version', 'file', 'toleranceMm', 'bytesIn', 'bytesOut', 'timeMs', 'elements', 'totals', 'paints', 'warnings'] as const;
 export const TOTALS_KEYS = ['elements', 'rewritten', 'kept', 'commandsBefore', 'segmentsAfter', 'maxDeviation', 'withinTolerance'] as const;
 export const ELEMENT_KEYS = ['index', 'name', 'id', 'ancestors', 'commandsBefore', 'straightMovesNeeded', 'segmentsAfter', 'grows', 'deviation', 'kept', 'keptReason', 'status', 'reason', 'style', 'copies'] as const;
+/** An element that was fitted (not kept before fitting) also lists its contours. */
+export const ELEMENT_FITTED_KEYS = [...ELEMENT_KEYS, 'contours'] as const;
 export const DEVIATION_KEYS = ['max', 'originalToResult', 'resultToOriginal', 'mean', 'worstMm', 'worstUser'] as const;
 /** The report's `machine` field, present only for G-code and DXF output (FILE_REPORT_KEYS are an SVG report's). */
 export const MACHINE_KEYS = ['format', 'profile', 'origin', 'digits', 'lines', 'moves', 'checked', 'seconds', 'straight'] as const;
@@ -67,11 +69,12 @@ export const MACHINE_KEYS = ['format', 'profile', 'origin', 'digits', 'lines', '
 // The lists above must name every field: a field added to the types without a test fails to compile here.
 type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
 const complete: [
-  // plan and planGroup appear only with the path plan (test/planRefit.test.ts).
+  // plan and planGroup appear only with the path plan (test/planRefit.test.ts); an element's contours only
+  // when it was fitted (ELEMENT_FITTED_KEYS).
   Same<Exclude<keyof FileReport, 'machine' | 'plan'>, (typeof FILE_REPORT_KEYS)[number]>,
   Same<keyof MachineSummary, (typeof MACHINE_KEYS)[number]>,
   Same<keyof FileReport['totals'], (typeof TOTALS_KEYS)[number]>,
-  Same<keyof ElementReport, (typeof ELEMENT_KEYS)[number] | 'planGroup'>,
+  Same<keyof ElementReport, (typeof ELEMENT_KEYS)[number] | 'planGroup' | 'contours'>,
   Same<keyof Deviation, (typeof DEVIATION_KEYS)[number]>,
 ] = [true, true, true, true, true];
 void complete;

@@ -7,7 +7,7 @@ import { SAFETY_CAUTION } from '../../src/cli/help.js';
 import { DEFAULT_OPTIONS } from '../../src/options.js';
 import { refitSvg } from '../../src/refit.js';
 import type { FileReport } from '../../src/report/types.js';
-import { DEVIATION_KEYS, ELEMENT_KEYS, FILE_REPORT_KEYS, run, scratch, SMALL, TOTALS_KEYS } from './helpers.js';
+import { DEVIATION_KEYS, ELEMENT_FITTED_KEYS, ELEMENT_KEYS, FILE_REPORT_KEYS, run, scratch, SMALL, TOTALS_KEYS } from './helpers.js';
 
 const BRACKET_PATH = new URL('../../samples/bracket.svg', import.meta.url).pathname;
 const BRACKET = readFileSync(BRACKET_PATH, 'utf8');
@@ -41,7 +41,12 @@ describe('the acceptance form: INPUT -o OUTPUT --tolerance 0.05mm --report REPOR
     expect(Object.keys(report).sort()).toEqual([...FILE_REPORT_KEYS].sort());
     expect(Object.keys(report.totals).sort()).toEqual([...TOTALS_KEYS].sort());
     expect(report.elements.length).toBeGreaterThan(0);
-    for (const e of report.elements) expect(Object.keys(e).sort()).toEqual([...ELEMENT_KEYS].sort());
+    for (const e of report.elements) {
+      expect(Object.keys(e).sort()).toEqual([...(e.contours ? ELEMENT_FITTED_KEYS : ELEMENT_KEYS)].sort());
+      // One outcome per subpath of a fitted element; a refitted element has at least one refitted subpath.
+      if (e.contours && e.status === 'refitted') expect(e.contours.some((c) => c.status === 'refitted')).toBe(true);
+    }
+    expect(report.elements.some((e) => e.contours !== undefined)).toBe(true);
     const measured = report.elements.find((e) => e.deviation !== null)!;
     expect(Object.keys(measured.deviation!).sort()).toEqual([...DEVIATION_KEYS].sort());
     expect(report.toleranceMm).toBe(0.05);
