@@ -28,7 +28,7 @@ import type { ParsedPath } from './svg/pathTypes.js';
 import { drawingElementFromSvg, readGeometry } from './model/fromSvg.js';
 import type { DrawingElement } from './model/drawing.js';
 import { straightMoves } from './model/fit.js';
-import { resolveStyle } from './model/style.js';
+import { paintsFill, resolveStyle } from './model/style.js';
 import { splitTolerance } from './budget.js';
 import { fitPolyline } from './fit/fitPolyline.js';
 import { arcGeometry } from './fit/segment.js';
@@ -77,9 +77,9 @@ export function planDocument(doc: SvgDocument, opts: Options, times: StageTimes)
   const input: PlanContour[] = [];
   for (const el of doc.elements) {
     if (!el.rewritable || el.copyScale > 1 || (el.id !== null && referenced(doc.text, el.id))) continue;
-    // Stroke only, decided before any geometry is read (filled elements are refitted one by one, untouched here).
-    const style = resolveStyle(el);
-    if (style.fill !== 'none' || style.stroke === 'none') continue;
+    // Stroked, decided before any geometry is read; whether a fill paints is decided on the geometry below
+    // (filled elements are refitted one by one, untouched here).
+    if (resolveStyle(el).stroke === 'none') continue;
     let t = now();
     const p = readGeometry(el, []);
     times.parse += now() - t;
@@ -88,6 +88,7 @@ export function planDocument(doc: SvgDocument, opts: Options, times: StageTimes)
     const model = drawingElementFromSvg(el, p, tol, maxScale(el.toMm), opts.digits);
     times.flatten += now() - t;
     if (!('contours' in model) || model.points.length > 0 || model.contours.length === 0) continue;
+    if (paintsFill(model.style.fill, model.contours)) continue;
     const { stroke, strokeWidthMm } = model.style;
     members.set(el.index, { el, p, model });
     const group = `${stroke} ${+strokeWidthMm.toPrecision(6)} mm`;
@@ -143,10 +144,11 @@ function writeGroup(doc: SvgDocument, opts: Options, group: string, planned: Pla
   let arcs = 0, lines = 0, moves = 0;
   for (const c of planned) {
     // The fit keeps within what the plan left of the budget (a join's bridge, a removed double line).
-    // A closed contour keeps the plan's entry vertex as its seam (a corner there), so it starts where the plan says.
+    // A closed contour starts at the plan's entry vertex: the fitter keeps a closed contour's first vertex as its
+    // seam (src/fit/stretches.ts), smooth there when the contour is smooth, so a ring stays two half turns.
     // A join distance over twice the budget leaves the fit nothing: it then gets a twentieth, and the measurement decides.
     const fitTol = Math.max(budget.fitMm - c.slack, 0.05 * tol);
-    const fit = fitPolyline(c.xy, { tolerance: fitTol, closed: c.closed, cornerAngle: opts.cornerAngle, corners: c.closed ? [0] : undefined });
+    const fit = fitPolyline(c.xy, { tolerance: fitTol, closed: c.closed, cornerAngle: opts.cornerAngle });
     moves += straightMoves({ xy: c.xy, closed: c.closed }, tol);
     const sink = new PathWriter({ digits: budget.digits });
     const stats = emitSegments(sink, [{ segments: fit.segments, closed: c.closed }], mmToLocal, { digits: budget.digits });

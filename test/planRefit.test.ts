@@ -26,16 +26,20 @@ const paths = (svg: string): string[] => [...svg.matchAll(/<path\b[^>]*\bd="([^"
 const drawing = (d: string): number => Array.from(parsePathData(d).ops).filter((op) => op !== 0).length;
 
 describe('refitSvg with the plan', () => {
-  it('writes a ring of 720 <line> elements as one path of arcs', () => {
+  it('writes a ring of 720 <line> elements as one path of two arcs', () => {
+    // No fill="none" on them, as lines are written: a line has no interior and is never filled (SVG 1.1 §9.5).
     const lines = Array.from({ length: 720 }, (_, k) => {
       const [x1, y1] = ring(k), [x2, y2] = ring(k + 1);
-      return `  <line x1="${x1}" y1="${y1}" x2="${x2}" y2="${y2}" stroke="red" fill="none"/>\n`;
+      return `  <line x1="${x1}" y1="${y1}" x2="${x2}" y2="${y2}" stroke="red"/>\n`;
     }).join('');
     const r = refitSvg(doc(lines), { plan: true, tolerance: 0.1 });
     expect(r.text).not.toContain('<line');
     const ds = paths(r.text);
     expect(ds).toHaveLength(1);
     expect(ds[0]).not.toMatch(/[LlHhVv]/);
+    // The whole ring, two half turns on its circle (the polygon's vertices lie on r = 50).
+    const counts = parsePathData(ds[0]).counts;
+    expect((counts.A ?? 0) + (counts.a ?? 0)).toBe(2);
     const p = r.report.plan!;
     expect([p.piercesBefore, p.piercesAfter, p.contoursJoined, p.doubleLinesMm]).toEqual([720, 1, 719, 0]);
     expect(r.report.totals.withinTolerance).toBe(true);
@@ -53,7 +57,9 @@ describe('refitSvg with the plan', () => {
       [subs[i], subs[j]] = [subs[j], subs[i]];
     }
     const d = subs.map(([a, b]) => `M${a[0]} ${a[1]}L${b[0]} ${b[1]}`).join('');
-    const r = refitSvg(doc(`  <path d="${d}" style="fill:none;stroke:#000"/>\n`), { plan: true, tolerance: 0.1 });
+    // The initial fill (black) paints nothing here: every subpath is one segment, closed back on itself it encloses
+    // no area (SVG 2 §13.3: the fill closes open subpaths), so the element counts as stroke only.
+    const r = refitSvg(doc(`  <path d="${d}" stroke="#000"/>\n`), { plan: true, tolerance: 0.1 });
     const ds = paths(r.text);
     expect(ds).toHaveLength(1);
     expect(parsePathData(ds[0]).counts.M ?? 0).toBe(1);

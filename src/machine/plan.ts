@@ -27,6 +27,7 @@ import { strokeKey } from './colour.js';
 import type { PlanReport } from '../report/types.js';
 
 import { PLAN_OVERLAP_SHARE } from '../planRefit.js';
+import { paintsFill } from '../model/style.js';
 
 /** One element that can be written to the machine file, before fitting. */
 export interface MachineCandidate {
@@ -53,10 +54,10 @@ export interface MachinePlanGroup {
   straightMovesNeeded: number;
 }
 
-/** Whether the plan takes an element: stroke only, drawn in place only, with contours and no point marks. */
+/** Whether the plan takes an element: stroked, painting no fill (src/model/style.ts), drawn in place only, with contours and no point marks. */
 export function plannable(m: DrawingElement): boolean {
-  return m.style.fill === 'none' && m.style.stroke !== 'none' && m.inPlace && m.copies.length === 0 &&
-    m.points.length === 0 && m.contours.length > 0;
+  return m.style.stroke !== 'none' && m.inPlace && m.copies.length === 0 &&
+    m.points.length === 0 && m.contours.length > 0 && !paintsFill(m.style.fill, m.contours);
 }
 
 /**

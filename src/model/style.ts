@@ -16,3 +16,25 @@ import type { DrawingStyle } from './drawing.js';
 export function resolveStyle(el: GeometryElement, style: ElementStyle = el.style): DrawingStyle {
   return { stroke: style.stroke, fill: style.fill, strokeWidthMm: style.strokeWidthMm, fillRule: style.fillRule };
 }
+
+/** Below this enclosed area (mm²) a contour paints no fill: a nanometre square, far under any tolerance. */
+const NO_AREA_MM2 = 1e-9;
+
+/**
+ * Whether an element's fill paints anything: its fill is not `none` and some contour encloses area. The fill
+ * closes an open subpath implicitly (SVG 2 §13.3), so a single segment (a `<line>`, or `M a L b`) or a run of
+ * collinear points paints none whatever its fill: such geometry is stroke only to the path plan.
+ * @param fill the computed fill
+ * @param contours the element's contours in mm
+ */
+export function paintsFill(fill: string, contours: readonly { xy: Float64Array }[]): boolean {
+  if (fill === 'none') return false;
+  for (const c of contours) {
+    const xy = c.xy, n = xy.length >> 1;
+    // Shoelace formula (surveyor's area formula, handbook), over the subpath closed back to its start.
+    let twice = 0;
+    for (let i = 0, j = n - 1; i < n; j = i++) twice += xy[2 * j] * xy[2 * i + 1] - xy[2 * i] * xy[2 * j + 1];
+    if (Math.abs(twice) / 2 > NO_AREA_MM2) return true;
+  }
+  return false;
+}

@@ -1,6 +1,6 @@
 /** Style resolution for the drawing model: the reader's computed style (the CSS cascade, src/svg/style/). */
 import { describe, expect, it } from 'vitest';
-import { resolveStyle } from '../../src/model/style.js';
+import { paintsFill, resolveStyle } from '../../src/model/style.js';
 import { readSvg } from '../../src/svg/document.js';
 
 const PX = 25.4 / 96; // CSS Values 3 §5.2: 1px = 1/96 in
@@ -28,5 +28,17 @@ describe('resolveStyle', () => {
   it('what nothing sets takes the initial value: fill black, stroke none, width 1 (SVG 2 §13.2, §13.5)', () => {
     expect(resolveStyle(first('<path d="M0 0H1"/>'))).toEqual({ stroke: 'none', fill: '#000000', strokeWidthMm: PX, fillRule: 'nonzero' });
     expect(resolveStyle(first('<path stroke-width="thick" d="M0 0H1"/>')).strokeWidthMm).toBeCloseTo(PX, 12);
+  });
+});
+
+describe('paintsFill', () => {
+  const xy = (...v: number[]): { xy: Float64Array } => ({ xy: Float64Array.from(v) });
+  it('a segment or a collinear run encloses no area: nothing to fill (SVG 1.1 §9.5: a line is never filled)', () => {
+    expect(paintsFill('#000000', [xy(0, 0, 10, 0)])).toBe(false);
+    expect(paintsFill('#000000', [xy(0, 0, 1, 1, 2, 2, 3, 3)])).toBe(false);
+  });
+  it('an open triangle is filled closed (SVG 2 §13.3); its area by the shoelace formula is 50 mm²', () => {
+    expect(paintsFill('#000000', [xy(0, 0, 10, 0), xy(0, 0, 10, 0, 10, 10)])).toBe(true);
+    expect(paintsFill('none', [xy(0, 0, 10, 0, 10, 10)])).toBe(false);
   });
 });
