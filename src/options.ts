@@ -149,26 +149,15 @@ export function resolveOptions(input: ArcsplineOptions = {}): Options {
   }
   const partial = input as Partial<Options>;
   const tolerance = typeof input.tolerance === 'string' ? parseToleranceText(input.tolerance) : input.tolerance;
-  const o: Options = {
-    tolerance: tolerance ?? DEFAULT_OPTIONS.tolerance,
-    cornerAngle: partial.cornerAngle ?? DEFAULT_OPTIONS.cornerAngle,
-    bakeTransforms: partial.bakeTransforms ?? DEFAULT_OPTIONS.bakeTransforms,
-    shapesAsPaths: partial.shapesAsPaths ?? DEFAULT_OPTIONS.shapesAsPaths,
-    keepGrowingCurves: partial.keepGrowingCurves ?? DEFAULT_OPTIONS.keepGrowingCurves,
-    refitMarked: partial.refitMarked ?? DEFAULT_OPTIONS.refitMarked,
-    assumedMmPerUnit: partial.assumedMmPerUnit ?? DEFAULT_OPTIONS.assumedMmPerUnit,
-    digits: partial.digits === undefined ? DEFAULT_OPTIONS.digits : partial.digits,
-    maxInputBytes: partial.maxInputBytes ?? DEFAULT_OPTIONS.maxInputBytes,
-    format: partial.format ?? DEFAULT_OPTIONS.format,
-    machineProfile: partial.machineProfile ?? DEFAULT_OPTIONS.machineProfile,
-    machineOrigin: partial.machineOrigin ?? DEFAULT_OPTIONS.machineOrigin,
-    plan: partial.plan ?? DEFAULT_OPTIONS.plan,
-    planJoin: partial.planJoin ?? DEFAULT_OPTIONS.planJoin,
-    planDoubles: partial.planDoubles ?? DEFAULT_OPTIONS.planDoubles,
-    planOrder: partial.planOrder ?? DEFAULT_OPTIONS.planOrder,
-    holesFirst: partial.holesFirst ?? DEFAULT_OPTIONS.holesFirst,
-    joinDistance: partial.joinDistance === undefined ? DEFAULT_OPTIONS.joinDistance : partial.joinDistance,
-  };
+  // Every option its default unless given (undefined means not given; null is a value where an option takes it).
+  const o: Options = { ...DEFAULT_OPTIONS };
+  for (const k of Object.keys(DEFAULT_OPTIONS) as (keyof Options)[]) {
+    const v = k === 'tolerance' ? tolerance : partial[k];
+    if (v === undefined) continue;
+    if (typeof DEFAULT_OPTIONS[k] === 'boolean' && typeof v !== 'boolean') throw new OptionError(`${k} must be true or false, got ${String(v)}`);
+    (o as unknown as Record<string, unknown>)[k] = v;
+  }
+
   if (!(o.tolerance > 0) || !Number.isFinite(o.tolerance)) {
     throw new OptionError(`tolerance must be a positive number of mm, got ${String(partial.tolerance)}`);
   }

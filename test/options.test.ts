@@ -26,6 +26,14 @@ describe('resolveOptions', () => {
     expect(closestOption('colour')).toBeNull();
   });
 
+  it('a flag must be a boolean, and null is not a default (a plain JavaScript caller gets a clear error)', () => {
+    expect(() => resolveOptions({ plan: 'yes' } as unknown as ArcsplineOptions)).toThrow('plan must be true or false, got yes');
+    expect(() => resolveOptions({ planJoin: null } as unknown as ArcsplineOptions)).toThrow('planJoin must be true or false, got null');
+    expect(() => resolveOptions({ tolerance: null } as unknown as ArcsplineOptions)).toThrow(/tolerance must be a positive number of mm, got null/);
+    // Options whose value may be null take it.
+    expect(resolveOptions({ digits: null, joinDistance: null })).toMatchObject({ digits: null, joinDistance: null });
+  });
+
   it('fills every left-out field from DEFAULT_OPTIONS (a partial object is the input type)', () => {
     const input: ArcsplineOptions = {};
     expect(resolveOptions(input)).toEqual(DEFAULT_OPTIONS);
