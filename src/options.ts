@@ -95,7 +95,7 @@ export const OPTION_DOCS: Readonly<Record<keyof Options, OptionDoc>> = Object.fr
   format: { meaning: 'output: svg, gcode or dxf (the same fit; a machine file is read back and measured)', unit: 'name' },
   machineProfile: { meaning: 'machine profile for G-code: laser, pen-z, pen-servo or a JSON profile', unit: 'name' },
   machineOrigin: { meaning: 'page corner at the machine origin in G-code and DXF: lower-left or upper-left', unit: 'name' },
-  plan: { meaning: 'plan the path of stroke-only (unfilled) geometry per stroke colour: join ends that meet, draw double lines once, reorder for short travel; filled shapes are left alone (SVG and machine output)', unit: 'flag' },
+  plan: { meaning: 'plan the path of stroke-only geometry (no fill, or none that paints: a line) per stroke colour: join ends that meet, draw double lines once, reorder for short travel; filled shapes are left alone (SVG and machine output)', unit: 'flag' },
   planJoin: { meaning: 'with the plan: join open contours whose ends meet', unit: 'flag' },
   planDoubles: { meaning: 'with the plan: draw lines drawn twice (exactly, reversed, in part) once', unit: 'flag' },
   planOrder: { meaning: 'with the plan: reorder and reverse contours and move closed contours\' start points for short travel', unit: 'flag' },
