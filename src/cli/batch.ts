@@ -124,7 +124,8 @@ export async function runBatch(inputs: readonly string[], flags: BatchFlags, opt
     } else {
       const r = outcome.report;
       addReport(totals, path, r, outcome.changed);
-      for (const l of fileLines(path, r, { summary: !bar && !flags.quiet, table: flags.table && !flags.quiet, paint })) progress.log(l);
+      const sizes = { in: outcome.bytesRead, out: outcome.out.length };
+      for (const l of fileLines(path, r, { summary: !bar && !flags.quiet, table: flags.table && !flags.quiet, paint, sizes })) progress.log(l);
       code = Math.max(code, fileExitCode(r));
       void lines?.write(r);
     }

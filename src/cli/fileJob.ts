@@ -61,6 +61,8 @@ export interface FileDone {
   changed: boolean;
   /** The bytes read, when the task asked for them. */
   original: Uint8Array | null;
+  /** Size of the file read, bytes (the report's bytesIn counts the decoded text as UTF-8). */
+  bytesRead: number;
   /** Input and output text, when the task asked for them. */
   text: { before: string; after: string } | null;
 }
@@ -108,7 +110,7 @@ export async function refitFileTask(task: FileTask, bytes?: Uint8Array): Promise
     const m = refitToMachine(decoded.text, task.options, task.path);
     return {
       id: task.id, ok: true, report: m.report, out: new TextEncoder().encode(m.text), changed: true,
-      original: task.wantOriginal ? new Uint8Array(raw) : null, text: null,
+      original: task.wantOriginal ? new Uint8Array(raw) : null, bytesRead: raw.length, text: null,
     };
   }
   const result = await refitSvgParallel(decoded.text, task.options, task.path, task.threads);
@@ -121,6 +123,7 @@ export async function refitFileTask(task: FileTask, bytes?: Uint8Array): Promise
     changed,
     // A copy, so the buffer sent back is exactly the file (a read buffer may be a slice of a larger one).
     original: task.wantOriginal ? new Uint8Array(raw) : null,
+    bytesRead: raw.length,
     text: task.wantText ? { before: decoded.text, after: result.text } : null,
   };
 }
@@ -216,13 +219,15 @@ export interface FileView {
   /** The per-element table (--table). */
   table: boolean;
   paint?: Paint;
+  /** The file sizes read and written (gzip and UTF-16 included), for the summary; the report's UTF-8 sizes when absent. */
+  sizes?: { in: number; out: number };
 }
 
 /** The lines printed on standard error for a refitted file: summary, table, then warnings and elements kept over the tolerance (always). */
 export function fileLines(name: string, report: FileReport, view: FileView): string[] {
   const paint = view.paint ?? PLAIN;
   const out: string[] = [];
-  if (view.summary) out.push(summaryLine(name, report, paint));
+  if (view.summary) out.push(summaryLine(name, report, paint, view.sizes));
   if (view.table) out.push(formatTable(report, { color: paint !== PLAIN, width: 100 }).trimEnd());
   out.push(...problemLines(name, report, paint));
   return out;

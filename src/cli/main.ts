@@ -279,7 +279,8 @@ async function refitFile(input: string, flags: CliFlags, options: Partial<Option
     const { writePreview } = await import('./previewCommand.js');
     await writePreview(done.text.before, done.text.after, flags.preview, { report: done.report });
   }
-  for (const line of fileLines(name, done.report, { summary: !flags.quiet, table: flags.table && !flags.quiet, paint })) io.stderr.write(`${line}\n`);
+  const sizes = { in: done.bytesRead, out: done.out.length };
+  for (const line of fileLines(name, done.report, { summary: !flags.quiet, table: flags.table && !flags.quiet, paint, sizes })) io.stderr.write(`${line}\n`);
   await lines?.write(done.report);
   return fileExitCode(done.report);
 }

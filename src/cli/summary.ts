@@ -72,11 +72,12 @@ export function commandsText(replaced: number, total: number): string {
  * One line for one file, e.g. `bracket.svg: 2799 of 2801 commands → 33 segments
  * (27 arcs, 6 lines) in 5 of 7 elements, max deviation 0.086 mm ≤ 0.1 mm,
  * 32.5 kB → 2.0 kB`.
+ * @param sizes the files' sizes read and written (gzip, UTF-16); without them the report's UTF-8 sizes
  */
-export function summaryLine(name: string, report: FileReport, paint: Paint = PLAIN): string {
+export function summaryLine(name: string, report: FileReport, paint: Paint = PLAIN, sizes?: { in: number; out: number }): string {
   if (report.machine) return machineSummaryLine(name, report, report.machine, paint);
   const t = report.totals;
-  const bytes = `${formatBytes(report.bytesIn)} → ${formatBytes(report.bytesOut)}`;
+  const bytes = `${formatBytes(sizes?.in ?? report.bytesIn)} → ${formatBytes(sizes?.out ?? report.bytesOut)}`;
   const head = `${paint.bold(name)}:`;
   if (t.elements === 0) return `${head} no paths or shapes to refit, ${bytes}`;
   const over = overTolerance(report).length;

@@ -117,6 +117,14 @@ describe('.svgz: gzip (RFC 1952) read and written back, checked with node:zlib',
     expect(outputForm({ encoding: 'utf-16le', gzip: true }, null)).toEqual({ encoding: 'utf-16le', gzip: true });
   });
 
+  it('the summary line gives the sizes of the files read and written, gzip included (SI kB, 1 kB = 1000 B)', async () => {
+    writeFileSync(at('s.svgz'), gz);
+    const r = await run([at('s.svgz'), '-o', at('s.out.svgz')]);
+    expect(r.code).toBe(EXIT_OK);
+    const b = (n: number): string => (n < 1e3 ? `${n} B` : `${(n / 1e3).toFixed(1)} kB`);
+    expect(r.stderr).toContain(`${b(gz.length)} → ${b(readFileSync(at('s.out.svgz')).length)}`);
+  });
+
   it('a batch finds *.svgz in directories and writes them gzipped; a broken one is a named failure, not skipped', async () => {
     mkdirSync(at('in'));
     writeFileSync(at('in', 'a.svgz'), gz);
