@@ -5,6 +5,7 @@
 import { makePiece, pieceStartTangent, type Piece } from './piece.js';
 import { lineFits } from './check.js';
 import { TANGENT_EPS } from './closure.js';
+import { rotorCentreX, rotorCentreY } from '../pga/motor.js';
 
 /** Replace neighbouring pieces by one where one rotor piece covers both and keeps the tangent after them. */
 export function mergeNeighbours(pts: Float64Array, pieces: Piece[], tol: number): Piece[] {
@@ -46,7 +47,7 @@ export function straightenFlatArcs(pts: Float64Array, pieces: Piece[], maxRadius
   return pieces.map((p) => {
     if (p.kind !== 'arc') return p;
     const r = p.mr;
-    const rad = Math.hypot(p.x0 + p.mq / r, p.y0 - p.mp / r);
+    const rad = Math.hypot(p.x0 - rotorCentreX(p.mq, r), p.y0 - rotorCentreY(p.mp, r));
     const dx = p.x1 - p.x0, dy = p.y1 - p.y0, l = Math.hypot(dx, dy);
     // The chord leaves the neighbours' tangents by half the arc's angle: only a negligible kink is allowed.
     if (rad <= maxRadius || l / (2 * rad) > MAX_KINK || !lineFits(pts, p.a, p.b, p.x0, p.y0, p.x1, p.y1, tol)) return p;

@@ -4,6 +4,7 @@
  * vertices it stands for.
  */
 import { arcStepScalar } from '../pga/arcStep.js';
+import { rotorCentreX, rotorCentreY, rotorSweep } from '../pga/motor.js';
 import { arcFitsIn, FIT_ARGS, FIT_CX, FIT_CY, FIT_R, FIT_SWEEP, len2, lineFitsIn, setEnds } from './check.js';
 
 
@@ -84,9 +85,9 @@ export function tryPiece(out: Float64Array, o: number, pts: Float64Array, a: num
     out[o + PIECE_TY] = dy / chord;
     return LINE_PIECE;
   }
-  const cx = -out[o + PIECE_MQ] / r, cy = out[o + PIECE_MP] / r;
+  const cx = rotorCentreX(out[o + PIECE_MQ], r), cy = rotorCentreY(out[o + PIECE_MP], r);
   const rad = len2(qx - cx, qy - cy);
-  const sweep = -2 * Math.atan2(r, s);
+  const sweep = rotorSweep(s, r);
   fit[FIT_CX] = cx;
   fit[FIT_CY] = cy;
   fit[FIT_R] = rad;
@@ -140,8 +141,8 @@ export function pieceStartTangent(p: Piece): [number, number] {
     return [(p.x1 - p.x0) / l, (p.y1 - p.y0) / l];
   }
   const r = p.mr;
-  const cx = -p.mq / r, cy = p.mp / r;
+  const cx = rotorCentreX(p.mq, r), cy = rotorCentreY(p.mp, r);
   const rad = len2(p.x0 - cx, p.y0 - cy);
-  const sg = -2 * Math.atan2(r, p.ms) > 0 ? 1 : -1;
+  const sg = rotorSweep(p.ms, r) > 0 ? 1 : -1;
   return [(-sg * (p.y0 - cy)) / rad, (sg * (p.x0 - cx)) / rad];
 }

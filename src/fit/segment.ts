@@ -5,7 +5,7 @@
  * ../pga/arcStep.ts): the piece is the orbit R^t·P0·R̃^t, t in [0, 1]. Centre,
  * radius and sweep are read off the motor only for writing and measuring.
  */
-import { TRANSLATION_EPS, motorSweep } from '../pga/motor.js';
+import { TRANSLATION_EPS, motorSweep, rotorCentreX, rotorCentreY } from '../pga/motor.js';
 
 export interface Segment {
   /** 'arc' (rotation motor) or 'line' (translation motor). */
@@ -35,6 +35,6 @@ export function arcGeometry(seg: Segment): ArcGeometry | null {
   const m = seg.motor;
   const s = m[0], p = m[1], q = m[2], r = m[3];
   if (seg.kind === 'line' || Math.abs(r) <= TRANSLATION_EPS * Math.abs(s)) return null;
-  const cx = -q / r, cy = p / r;
+  const cx = rotorCentreX(q, r), cy = rotorCentreY(p, r);
   return { cx, cy, r: Math.hypot(seg.x0 - cx, seg.y0 - cy), sweep: motorSweep(m) };
 }

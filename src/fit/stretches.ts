@@ -12,6 +12,7 @@ import { mergeNeighbours, straightenFlatArcs } from './merge.js';
 import { openSeeds, seamSeeds } from './seeds.js';
 import type { Run } from './runs.js';
 import { thinWithin } from './prefilter.js';
+import { rotorCentreX, rotorCentreY } from '../pga/motor.js';
 
 export interface StretchFit {
   /** Pieces in order; their a, b are thinned-vertex indices, possibly ≥ mc for a closed contour (take them mod mc). */
@@ -239,7 +240,7 @@ function wholeCircle(pts: Float64Array, last: number, pieces: Piece[], tol: numb
   }
   if (pieces.length !== 2) return null;
   const B = pieces[1];
-  const ax = -A.mq / A.mr, ay = A.mp / A.mr, bx = -B.mq / B.mr, by = B.mp / B.mr;
+  const ax = rotorCentreX(A.mq, A.mr), ay = rotorCentreY(A.mp, A.mr), bx = rotorCentreX(B.mq, B.mr), by = rotorCentreY(B.mp, B.mr);
   const r = Math.hypot(A.x0 - ax, A.y0 - ay);
   if (!(Math.hypot(ax - bx, ay - by) <= 1e-9 * r && Math.abs(Math.hypot(B.x0 - bx, B.y0 - by) - r) <= 1e-9 * r)) return null;
   return halvesOn(pts, last, ax, ay, r, A, tol);

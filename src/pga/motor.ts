@@ -58,5 +58,27 @@ export function isTranslation(m: Motor): boolean {
  * normalised rotation motor: positive from +x towards +y (SVG sweep-flag 1).
  */
 export function motorSweep(m: Motor): number {
-  return -2 * Math.atan2(m[3], m[0]);
+  return rotorSweep(m[0], m[3]);
+}
+
+/*
+ * The same read-outs from a motor's scalar parts s + p·e01 + q·e02 + r·e12, for
+ * the fitter's flat records and pieces (which hold the four numbers, not a
+ * Motor array). The centre is the logarithm's point normalised, (−q/r, p/r);
+ * r must not be 0 (a translation has no centre).
+ */
+
+/** Sweep (radians, SVG sweep-flag 1 positive) of a normalised rotation motor from its scalar and e12 parts. */
+export function rotorSweep(s: number, r: number): number {
+  return -2 * Math.atan2(r, s);
+}
+
+/** x of a rotation motor's centre. */
+export function rotorCentreX(q: number, r: number): number {
+  return -q / r;
+}
+
+/** y of a rotation motor's centre. */
+export function rotorCentreY(p: number, r: number): number {
+  return p / r;
 }
