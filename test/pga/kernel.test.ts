@@ -3,7 +3,7 @@ import { idealPoint, line, point, pointX, pointY } from '../../src/pga/layout.js
 import {
   addPoints, innerPointLine, join, meet, mulLines, mulMotors, normalizeMotor, normalizePoint, reverseMotor, sandwich,
 } from '../../src/pga/ops.js';
-import { motorLog, motorPow, motorSweep } from '../../src/pga/motor.js';
+import { motorLog, motorPow, motorSweep, rotorCentreX, rotorCentreY, rotorSweep } from '../../src/pga/motor.js';
 import { fromLine, fromMotor, fromPoint, gp, grade, join as gjoin, lineOf, motorOf, pointOf, reverse } from './blades.js';
 import { rng } from '../fit/shapes.js';
 
@@ -134,6 +134,13 @@ describe('normalise, reverse, logarithm and power', () => {
     // The centre C = (−q/r, p/r) of the layout note is the direction of the logarithm.
     expect(-lg[1] / lg[2]).toBeCloseTo(-m[2] / m[3], 12);
     expect(lg[0] / lg[2]).toBeCloseTo(m[1] / m[3], 12);
+    // The scalar read-outs the fitter uses agree: the logarithm's point normalised, and the motor's sweep.
+    expect(rotorCentreX(m[2], m[3])).toBeCloseTo(-lg[1] / lg[2], 12);
+    expect(rotorCentreY(m[1], m[3])).toBeCloseTo(lg[0] / lg[2], 12);
+    expect(rotorSweep(m[0], m[3])).toBe(motorSweep(m));
+    // The centre is the fixed point of the rotation (sandwiching it returns it).
+    const c = sandwich(new Float64Array(3), m, point(rotorCentreX(m[2], m[3]), rotorCentreY(m[1], m[3])));
+    close([pointX(c), pointY(c)], [rotorCentreX(m[2], m[3]), rotorCentreY(m[1], m[3])], 1e-12);
     // The reverse undoes the motor: M·M̃ = 1 for a normalised motor.
     close(mulMotors(new Float64Array(4), m, reverseMotor(new Float64Array(4), m)), [1, 0, 0, 0], 1e-12);
   });
