@@ -45,6 +45,7 @@ import type { ElementReport, PlanReport } from './report/types.js';
 import { planContours } from './plan/plan.js';
 import type { PlanContour, PlannedContour } from './plan/types.js';
 import type { StageTimes } from './refit.js';
+import { MARK_ATTR, formatMark, readMark } from './write/refitMark.js';
 
 /** Share of the tolerance within which a line next to a kept one counts as drawn twice (the fit keeps the rest). */
 export const PLAN_OVERLAP_SHARE = 0.25;
@@ -77,6 +78,9 @@ export function planDocument(doc: SvgDocument, opts: Options, times: StageTimes)
   const input: PlanContour[] = [];
   for (const el of doc.elements) {
     if (!el.rewritable || el.copyScale > 1 || (el.id !== null && referenced(doc.text, el.id))) continue;
+    // Refitted before (its mark): the plan would spend the tolerance again; such elements go to the per-element
+    // refit, which keeps them within what is left (src/write/refitMark.ts), unless refitMarked.
+    if (!opts.refitMarked && readMark(el.attrs) !== null) continue;
     // Stroked, decided before any geometry is read; whether a fill paints is decided on the geometry below
     // (filled elements are refitted one by one, untouched here).
     if (resolveStyle(el).stroke === 'none') continue;
@@ -174,7 +178,7 @@ function writeGroup(doc: SvgDocument, opts: Options, group: string, planned: Pla
   t = now();
   // The anchor's id goes with the first path that draws part of the anchor itself (the others would be misnamed).
   const own = planned.findIndex((c) => c.sources.some((src) => src.element === anchor.index));
-  const text = paths.map((d, k) => pathElement(doc, anchor, d, k === Math.max(0, own))).join(indentOf(doc.text, anchor.startTag[0]));
+  const text = paths.map((d, k) => pathElement(doc, anchor, d, k === Math.max(0, own), tol)).join(indentOf(doc.text, anchor.startTag[0]));
   for (const m of els) {
     const start = m.el.startTag[0], end = m.el.endTag ? m.el.endTag[1] : m.el.startTag[1];
     if (m === els[0]) out.edits.push({ start, end, text });
@@ -194,12 +198,15 @@ function writeGroup(doc: SvgDocument, opts: Options, group: string, planned: Pla
   return true;
 }
 
-/** One `<path>` with the anchor's attributes (shape geometry, editor descriptions and, unless `keepId`, the id removed). */
-function pathElement(doc: SvgDocument, anchor: GeometryElement, d: string, keepId: boolean): string {
+/**
+ * One `<path>` with the anchor's attributes (shape geometry, editor descriptions and, unless `keepId`, the id
+ * removed) and the refit mark of the tolerance it was planned within, so a second run keeps it.
+ */
+function pathElement(doc: SvgDocument, anchor: GeometryElement, d: string, keepId: boolean, tolMm: number): string {
   const remove = anchor.name === 'path' ? [] : SHAPE_ATTRS[anchor.name].filter((a) => a in anchor.attrs);
   remove.push(...parametricAttributes(anchor.attrs, anchor.namespaces));
   if (!keepId && 'id' in anchor.attrs) remove.push('id');
-  const edits = editStartTag(doc.text, anchor, { rename: anchor.name === 'path' ? undefined : 'path', set: { d }, remove });
+  const edits = editStartTag(doc.text, anchor, { rename: anchor.name === 'path' ? undefined : 'path', set: { d, [MARK_ATTR]: formatMark(tolMm) }, remove });
   // The edits touch only the start tag: apply them to the text up to its end and keep the new tag.
   const tag = applyEdits(doc.text.slice(0, anchor.startTag[1]), edits).slice(anchor.startTag[0]);
   if (tag.endsWith('/>')) return tag;

@@ -9,6 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { Ajv2020 } from 'ajv/dist/2020.js';
 import { refitSvg } from '../src/refit.js';
 import { refitToMachine } from '../src/refitMachine.js';
+import { compareSvg } from '../src/measure/compare.js';
 import { OptionError } from '../src/options.js';
 import { parsePathData } from '../src/svg/pathData.js';
 import type { FileReport } from '../src/report/types.js';
@@ -145,6 +146,20 @@ describe('refitSvg with the plan', () => {
     expect(r.report.warnings.join(' ')).toMatch(/plan: the #000000 1 mm group measured 0\.25\d* mm/);
     expect(r.report.totals.withinTolerance).toBe(true);
     expect(r.report.elements.every((e) => e.planGroup === undefined)).toBe(true);
+  });
+
+  it('a second planning run changes nothing, and planning a refitted file keeps within the tolerance of the first original', () => {
+    // Two stroke-only Bézier paths of our own; the refit mark (src/write/refitMark.ts) carries what a run spent.
+    const body = '  <path d="M 10 50 C 20 10, 40 10, 50 50 C 60 90, 80 90, 90 50" fill="none" stroke="black"/>\n' +
+      '  <path d="M 10 80 C 30 60, 60 100, 90 80" fill="none" stroke="black"/>\n';
+    const first = refitSvg(doc(body), { plan: true, tolerance: 0.05 });
+    expect(first.text).toContain('data-arcspline-tolerance="0.05"');
+    expect(refitSvg(first.text, { plan: true, tolerance: 0.05 }).text).toBe(first.text);
+    // Refitted without the plan, then planned three times: the marked elements are not planned again.
+    let text = refitSvg(doc(body), { tolerance: 0.05 }).text;
+    for (let k = 0; k < 3; k++) text = refitSvg(text, { plan: true, tolerance: 0.05 }).text;
+    const c = compareSvg(doc(body), text, { tolerance: 0.05 });
+    expect(c.whole!.max).toBeLessThanOrEqual(0.05);
   });
 
   it('refuses the plan with baked transforms, naming the options; machine output takes it', () => {
