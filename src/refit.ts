@@ -20,6 +20,8 @@ import type { ElementReport, FileReport } from './report/types.js';
 import { refitElement, untouchedReport } from './refitElement.js';
 import { copiesSummary, editorSummary, growingSummary, summarise, untouchedSummary, wigglySummary } from './refitSummary.js';
 import { planDocument, type PlanOutcome } from './planRefit.js';
+import { needsRecheck, restyledElements } from './refitCheck.js';
+import { setUnchanged } from './report/status.js';
 
 /** Time spent per stage, milliseconds. */
 export interface StageTimes {
@@ -92,6 +94,8 @@ export function assemble(
   const copies = copiesSummary(doc, opts.tolerance);
   if (copies) warnings.push(copies);
   const edits: Edit[] = [];
+  // Each rewritten element's edits, so a rewrite the document read again refuses can be put back.
+  const own = new Map<number, { edits: Edit[]; report: ElementReport }>();
   const elements: ElementReport[] = [];
   const dropped: { tag: string; names: string[] }[] = [];
   const byIndex = new Map(outcomes.map((o) => [o.index, o]));
@@ -113,6 +117,7 @@ export function assemble(
     elements.push(o.report);
     if (o.edits) {
       edits.push(...o.edits);
+      own.set(el.index, { edits: o.edits, report: o.report });
       if (o.droppedEditorAttrs && o.droppedEditorAttrs.length > 0) dropped.push({ tag: elementTag(el), names: o.droppedEditorAttrs });
     }
   }
@@ -126,9 +131,27 @@ export function assemble(
   if (wiggly) warnings.push(wiggly);
   const growing = growingSummary(elements);
   if (growing) warnings.push(growing);
-  const t = now();
-  const out = applyEdits(text, edits);
+  let t = now();
+  let out = applyEdits(text, edits);
   times.write += now() - t;
+  // Planned groups restructure the document (elements removed): only the per-element rewrites are checked.
+  if (own.size > 0 && needsRecheck(doc, opts) && !(planned && planned.edits.length > 0)) {
+    t = now();
+    const bad = restyledElements(out, doc, [...own.keys()], opts);
+    times.measure += now() - t;
+    if (bad.size > 0) {
+      for (const i of bad) {
+        const { edits: mine, report: r } = own.get(i)!;
+        for (const e of mine) edits.splice(edits.indexOf(e), 1);
+        setUnchanged(r, 'restyled', 'written as a path, the document would style or place it otherwise (a style sheet rule for its element name, or a CSS transform over a baked one); kept as written');
+        if (r.contours) r.contours = r.contours.map((c) => ({ ...c, status: r.status, reason: r.reason }));
+      }
+      warnings.push(`${bad.size} rewritten element${bad.size > 1 ? 's' : ''} put back as written: as a path the document would style or place ${bad.size > 1 ? 'them' : 'it'} otherwise (a style sheet rule for the element name, or a CSS transform over a baked one)`);
+      t = now();
+      out = applyEdits(text, edits);
+      times.write += now() - t;
+    }
+  }
   const report = summarise(elements, opts.tolerance, text, out, warnings, file, now() - t0);
   if (planned) report.plan = planned.report;
   return { text: out, report, times };

@@ -14,6 +14,7 @@ export const REASON_STATUS: Readonly<Record<OutcomeReason, Exclude<OutcomeStatus
   'no-shorter': 'kept',
   'grows': 'kept',
   'already-refitted': 'kept',
+  'restyled': 'reverted',
   'over-tolerance': 'reverted',
   'cannot-measure': 'reverted',
   'unreadable-output': 'reverted',

@@ -34,12 +34,14 @@ export type OutcomeStatus = 'refitted' | 'kept' | 'reverted';
  *   `no-shorter` (lines only and the refit is no shorter); `grows` (Bézier curves whose refit has more
  *   pieces or bytes, kept by the keepGrowingCurves option); `already-refitted` (a previous run
  *   refitted it within this tolerance or less: its mark, src/write/refitMark.ts);
+ *   reverted `restyled`: written as a path, the document read again styles or places it otherwise (a sheet
+ *   rule for its element name, a CSS transform that wins over a baked transform);
  * - reverted: `over-tolerance` (the measured deviation is over the tolerance),
  *   `cannot-measure`, `unreadable-output` (the written path data did not read
  *   back: an internal fault), `nothing-to-measure`.
  */
 export type OutcomeReason =
-  | 'exact-shape' | 'not-drawn' | 'cannot-invert' | 'too-few-digits' | 'cannot-flatten' | 'no-shorter' | 'grows' | 'already-refitted'
+  | 'exact-shape' | 'not-drawn' | 'cannot-invert' | 'too-few-digits' | 'cannot-flatten' | 'no-shorter' | 'grows' | 'already-refitted' | 'restyled'
   | 'over-tolerance' | 'cannot-measure' | 'unreadable-output' | 'nothing-to-measure';
 
 export interface ElementReport {

@@ -87,12 +87,14 @@ const ANCESTOR_LEVELS = 24;
 export function readSvg(text: string, opts: ReadOptions): SvgDocument {
   const first = readPass(text, opts, null);
   if (first.sheets.length === 0) return first.doc;
+  first.doc.styleSheets = true;
   // Sheets apply to the whole document wherever they stand: match them against the table of the first pass, then read again.
   const notes = new Set<string>();
   const rules = parseSheets(first.sheets, notes);
   const matched = matchRules(first.table, rules, notes);
   const second = readPass(text, opts, matched);
   second.doc.warnings.push(...notes);
+  second.doc.styleSheets = true;
   return second.doc;
 }
 

@@ -79,6 +79,8 @@ export interface SvgDocument {
   /** The page (the root viewport) in mm, width and height (machine output puts its origin at a page corner). */
   pageMm: [number, number];
   warnings: string[];
+  /** True when `<style>` sheets apply (their rules match by element name, so renaming an element can change its style). */
+  styleSheets?: boolean;
 }
 
 /** Options for {@link readSvg}. */
