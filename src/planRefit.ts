@@ -70,6 +70,20 @@ interface Member {
 
 const now = (): number => performance.now();
 
+/** Attributes that place geometry (the written d replaces them), name it, or belong to an editor (namespaced). */
+const NOT_RENDERING = new Set(['d', 'points', 'x', 'y', 'width', 'height', 'rx', 'ry', 'cx', 'cy', 'r', 'x1', 'y1', 'x2', 'y2', 'id', MARK_ATTR]);
+
+/**
+ * What else decides how an element is drawn besides its stroke: its parent (opacity, clips, masks, filters and
+ * inherited properties of the ancestors) and its own other attributes (dashes, caps, joins, markers, opacity,
+ * class, style). Elements of one group share all of it, so writing a group's contours with its first element's
+ * attributes in its place draws each as before. The key is printed in no message (groups are named by paint).
+ */
+function renderingKey(el: GeometryElement): string {
+  const own = Object.keys(el.attrs).filter((k) => !k.includes(':') && !NOT_RENDERING.has(k)).sort();
+  return `\u0000${el.parent}\u0000${own.map((k) => `${k}=${el.attrs[k]}`).join('\u0000')}`;
+}
+
 /** Plan and write the document's stroke-only elements. */
 export function planDocument(doc: SvgDocument, opts: Options, times: StageTimes): PlanOutcome {
   const t0 = now();
@@ -95,7 +109,8 @@ export function planDocument(doc: SvgDocument, opts: Options, times: StageTimes)
     if (paintsFill(model.style.fill, model.contours)) continue;
     const { stroke, strokeWidthMm } = model.style;
     members.set(el.index, { el, p, model });
-    const group = `${stroke} ${+strokeWidthMm.toPrecision(6)} mm`;
+    // Planned paths are written in one element's place with its attributes: only siblings drawn alike may share a group.
+    const group = `${stroke} ${+strokeWidthMm.toPrecision(6)} mm${renderingKey(el)}`;
     model.contours.forEach((c, k) => input.push({ xy: c.xy, closed: c.closed, group, filled: false, source: { element: el.index, subpath: k } }));
   }
   const out: PlanOutcome = {
@@ -139,6 +154,8 @@ export function planDocument(doc: SvgDocument, opts: Options, times: StageTimes)
 function writeGroup(doc: SvgDocument, opts: Options, group: string, planned: PlannedContour[], els: Member[], out: PlanOutcome, times: StageTimes): boolean {
   const tol = opts.tolerance;
   const anchor = els[0].el;
+  // The group as people read it: its paint and width, and where it is written (groups of one paint may differ in context).
+  const name = `${group.split('\u0000')[0]} at element ${anchor.index}`;
   const mmToLocal = invert(new Float64Array(6), anchor.toMm);
   if (!mmToLocal) return false;
   const budget = splitTolerance(tol, { curved: els.some((m) => m.model.curved), mmPerUnit: maxScale(anchor.toMm), digits: opts.digits });
@@ -172,7 +189,7 @@ function writeGroup(doc: SvgDocument, opts: Options, group: string, planned: Pla
   times.measure += now() - t;
   if (parsed.some((p) => p.error) || !deviation || !(deviation.max <= tol)) {
     const what = deviation ? `measured ${deviation.max.toPrecision(3)} mm, over the ${+tol.toPrecision(6)} mm tolerance` : 'could not be measured';
-    out.warnings.push(`plan: the ${group} group ${what}; its elements are refitted one by one instead`);
+    out.warnings.push(`plan: the ${name} group ${what}; its elements are refitted one by one instead`);
     return false;
   }
   t = now();
@@ -187,7 +204,7 @@ function writeGroup(doc: SvgDocument, opts: Options, group: string, planned: Pla
     const r = baseReport(m.el, m.p);
     setRefitted(r);
     r.deviation = deviation;
-    r.planGroup = group;
+    r.planGroup = name;
     if (m === els[0]) {
       r.segmentsAfter = { arcs, lines };
       r.straightMovesNeeded = moves;

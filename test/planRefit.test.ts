@@ -143,9 +143,20 @@ describe('refitSvg with the plan', () => {
     const r = refitSvg(doc(body), { plan: true, tolerance: 0.1, joinDistance: 1 });
     expect(r.report.plan!.groups).toBe(0);
     expect(r.report.plan!.contoursJoined).toBe(0);
-    expect(r.report.warnings.join(' ')).toMatch(/plan: the #000000 1 mm group measured 0\.25\d* mm/);
+    expect(r.report.warnings.join(' ')).toMatch(/plan: the #000000 1 mm at element 1 group measured 0\.25\d* mm/);
     expect(r.report.totals.withinTolerance).toBe(true);
     expect(r.report.elements.every((e) => e.planGroup === undefined)).toBe(true);
+  });
+
+  it('never joins or moves geometry across a different drawing context (parent group, dashes, markers, opacity)', () => {
+    // Touching red lines, one dashed inside a translucent group: one contour would draw both alike, so they stay apart.
+    const body = '  <g opacity="0.2"><line x1="0" y1="20" x2="25" y2="20" stroke="red" stroke-dasharray="2 1"/></g>\n' +
+      '  <line x1="25" y1="20" x2="50" y2="20" stroke="red"/>\n  <line x1="50" y1="20" x2="75" y2="20" stroke="red" marker-end="url(#m)"/>\n';
+    const r = refitSvg(doc(body), { plan: true, tolerance: 0.1 });
+    expect(r.report.plan!.contoursJoined).toBe(0);
+    expect(r.text).toMatch(/<g opacity="0.2"><(path|line)[^>]*stroke-dasharray="2 1"/);
+    expect(r.text.match(/marker-end=/g)).toHaveLength(1);
+    expect(r.report.totals.withinTolerance).toBe(true);
   });
 
   it('a second planning run changes nothing, and planning a refitted file keeps within the tolerance of the first original', () => {

@@ -318,6 +318,7 @@ function readPass(text: string, opts: ReadOptions, matched: (Decl[] | undefined)
         reason,
         copyScale: 1,
         group: depth > 0 ? groupStack[depth - 1] : null,
+        parent: depth > 0 ? indexAt[depth - 1] : -1,
         namespaces: ns,
         drawnByUse: false,
         style: elementStyle(computed, toMm, docRootToMm, w, h),

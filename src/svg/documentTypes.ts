@@ -43,6 +43,8 @@ export interface GeometryElement {
   copyScale: number;
   /** Id of the nearest ancestor `<g>` that has one (a layer or group), or null. */
   group: string | null;
+  /** Document index of the parent element (−1 for none). */
+  parent: number;
   /** Namespace prefixes in scope at the element ('' = default namespace) → URI; shared, do not modify. */
   namespaces: Readonly<Record<string, string>>;
   /** True when it is drawn only through `<use>` (it stands in defs or a symbol). */
