@@ -132,7 +132,7 @@ export function planDocument(doc: SvgDocument, opts: Options, times: StageTimes)
     for (const c of contours) if (elements[elements.length - 1] !== c.source.element) elements.push(c.source.element);
     const planned = result.contours;
     if (!writeGroup(doc, opts, group, planned, elements.map((i) => members.get(i)!), out, times)) continue;
-    written.push(...planned);
+    for (const c of planned) written.push(c); // no spread: a large group would overflow the call stack
     out.report.groups++;
     out.report.contoursJoined += result.stats.contoursJoined;
     out.report.doubleLinesMm += result.stats.doubleLength;

@@ -85,12 +85,17 @@ export function planMachine(cands: readonly MachineCandidate[], opts: Options, s
       joinDistance: opts.joinDistance ?? tol, overlapDistance: PLAN_OVERLAP_SHARE * tol, start: at,
     });
     const planned = result.contours;
-    // The fit keeps within what the plan left of the tightest member's budget; a closed contour keeps its entry as seam.
-    const fitMm = Math.min(...members.map((m) => m.model.budget.fitMm));
-    const toleranceMm = Math.min(...members.map((m) => m.model.toleranceMm));
+    // The fit keeps within what the plan left of the tightest member's budget; a closed contour starts at its entry
+    // (the fitter keeps a closed contour's first vertex as its seam, smooth where the contour is).
+    // A loop, not Math.min(...list): a spread of some 120,000 values overflows the call stack.
+    let fitMm = Infinity, toleranceMm = Infinity;
+    for (const m of members) {
+      fitMm = Math.min(fitMm, m.model.budget.fitMm);
+      toleranceMm = Math.min(toleranceMm, m.model.toleranceMm);
+    }
     let arcs = 0, lines = 0, moves = 0;
     const contours = planned.map((c) => {
-      const fit = fitPolyline(c.xy, { tolerance: Math.max(fitMm - c.slack, 0.05 * toleranceMm), closed: c.closed, cornerAngle: opts.cornerAngle, corners: c.closed ? [0] : undefined });
+      const fit = fitPolyline(c.xy, { tolerance: Math.max(fitMm - c.slack, 0.05 * toleranceMm), closed: c.closed, cornerAngle: opts.cornerAngle });
       for (const s of fit.segments) if (arcGeometry(s)) arcs++; else lines++;
       moves += straightMoves({ xy: c.xy, closed: c.closed }, toleranceMm);
       return { segments: fit.segments, closed: c.closed };
