@@ -9,7 +9,7 @@ import { DEFAULT_OPTIONS } from '../options.js';
 import { SvgInputError } from '../svg/errors.js';
 import { randomBytes } from 'node:crypto';
 import { constants as fsc } from 'node:fs';
-import { lstat, open, realpath, rename, stat, unlink } from 'node:fs/promises';
+import { lstat, open, realpath, rename, stat, unlink, writeFile } from 'node:fs/promises';
 import { basename, dirname, join } from 'node:path';
 import type { Readable, Writable } from 'node:stream';
 import { UsageError } from './exitCodes.js';
@@ -137,6 +137,8 @@ export async function stageFile(path: string, data: string | Uint8Array): Promis
   try {
     const st = await stat(path);
     if (st.isDirectory()) throw new UsageError(`cannot write ${path}: is a directory`);
+    // A device, pipe or socket (/dev/null, a FIFO) is written into, never replaced by a renamed file.
+    if (!st.isFile()) return directFile(path, data);
     keepMode = st.mode & 0o7777;
     if ((await lstat(path)).isSymbolicLink()) target = await realpath(path);
   } catch (e) {
@@ -181,6 +183,27 @@ export async function stageFile(path: string, data: string | Uint8Array): Promis
       if (done) return;
       done = true;
       await unlink(tempPath).catch(() => undefined);
+    },
+  };
+}
+
+/** A target that is not a regular file: commit writes into it (no temporary file, nothing renamed). */
+function directFile(path: string, data: string | Uint8Array): StagedFile {
+  let done = false;
+  return {
+    target: path,
+    tempPath: '',
+    async commit() {
+      if (done) return;
+      done = true;
+      try {
+        await writeFile(path, data);
+      } catch (e) {
+        asUsageError(e, 'write', path);
+      }
+    },
+    async abort() {
+      done = true;
     },
   };
 }

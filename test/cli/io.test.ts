@@ -1,6 +1,7 @@
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { chmodSync, existsSync, linkSync, mkdirSync, readFileSync, readdirSync, statSync, symlinkSync, writeFileSync, lstatSync } from 'node:fs';
 import { join } from 'node:path';
+import { execFileSync } from 'node:child_process';
 import { Readable, Writable } from 'node:stream';
 import { UsageError } from '../../src/cli/exitCodes.js';
 import { decodeSvgBytes, readInputBytes, sameFile, stageFile, writeFileAtomic, writeToStream } from '../../src/cli/io.js';
@@ -54,6 +55,19 @@ describe('stageFile / writeFileAtomic', () => {
     const missing = join(dir, 'nope', 'x.svg');
     await expect(writeFileAtomic(missing, 'x')).rejects.toThrow(`cannot write ${missing}: no such file or directory`);
     expect(readdirSync(dir)).toEqual(['sub']);
+  });
+});
+
+describe('a target that is not a regular file', () => {
+  // A character device of our own (1,3 is the null device on Linux, devices.txt of the kernel docs): only root
+  // may make one, so the test runs where that is possible (CI runs as root) and says so where it is not.
+  const isRoot = typeof process.getuid === 'function' && process.getuid() === 0 && process.platform === 'linux';
+  it.runIf(isRoot)('is written into, not replaced by a renamed file (-o /dev/null must leave the device a device)', async () => {
+    const dev = join(dir, 'null');
+    execFileSync('mknod', [dev, 'c', '1', '3']);
+    await writeFileAtomic(dev, 'refitted');
+    expect(lstatSync(dev).isCharacterDevice()).toBe(true);
+    expect(readdirSync(dir).filter((f) => f.startsWith('.arcspline-'))).toEqual([]);
   });
 });
 
