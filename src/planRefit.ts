@@ -90,27 +90,31 @@ export function planDocument(doc: SvgDocument, opts: Options, times: StageTimes)
   const tol = opts.tolerance;
   const members = new Map<number, Member>();
   const input: PlanContour[] = [];
+  // Painting order: a group never reaches across geometry drawn between its members (a white fill over a line
+  // would otherwise end up under or over it), so every drawn element the plan leaves alone starts a new run.
+  let run = 0;
   for (const el of doc.elements) {
-    if (!el.rewritable || el.copyScale > 1 || (el.id !== null && referenced(doc.text, el.id))) continue;
+    if (!el.rewritable) continue; // not drawn where it stands: it paints nothing between members
+    const skip = (): void => void run++;
+    if (el.copyScale > 1 || el.drawnByUse || (el.id !== null && referenced(doc.text, el.id))) { skip(); continue; }
     // Refitted before (its mark): the plan would spend the tolerance again; such elements go to the per-element
     // refit, which keeps them within what is left (src/write/refitMark.ts), unless refitMarked.
-    if (!opts.refitMarked && readMark(el.attrs) !== null) continue;
+    if (!opts.refitMarked && readMark(el.attrs) !== null) { skip(); continue; }
     // Stroked, decided before any geometry is read; whether a fill paints is decided on the geometry below
     // (filled elements are refitted one by one, untouched here).
-    if (resolveStyle(el).stroke === 'none') continue;
+    if (resolveStyle(el).stroke === 'none') { skip(); continue; }
     let t = now();
     const p = readGeometry(el, []);
     times.parse += now() - t;
-    if (!p || p.ops.length === 0 || p.error) continue;
+    if (!p || p.ops.length === 0 || p.error) { skip(); continue; }
     t = now();
     const model = drawingElementFromSvg(el, p, tol, maxScale(el.toMm), opts.digits);
     times.flatten += now() - t;
-    if (!('contours' in model) || model.points.length > 0 || model.contours.length === 0) continue;
-    if (paintsFill(model.style.fill, model.contours)) continue;
+    if (!('contours' in model) || model.points.length > 0 || model.contours.length === 0 || paintsFill(model.style.fill, model.contours)) { skip(); continue; }
     const { stroke, strokeWidthMm } = model.style;
     members.set(el.index, { el, p, model });
     // Planned paths are written in one element's place with its attributes: only siblings drawn alike may share a group.
-    const group = `${stroke} ${+strokeWidthMm.toPrecision(6)} mm${renderingKey(el)}`;
+    const group = `${stroke} ${+strokeWidthMm.toPrecision(6)} mm${renderingKey(el)}\u0000${run}`;
     model.contours.forEach((c, k) => input.push({ xy: c.xy, closed: c.closed, group, filled: false, source: { element: el.index, subpath: k } }));
   }
   const out: PlanOutcome = {

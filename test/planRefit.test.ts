@@ -87,8 +87,10 @@ describe('refitSvg with the plan', () => {
 
   it('keeps colours apart and leaves filled shapes where they are, byte for byte', () => {
     const filled = '  <path d="M10 10L60 10L60 60Z" fill="#0f0"/>\n';
-    const body = '  <path d="M0 0L50 0" stroke="red" fill="none"/>\n' + filled +
-      '  <path d="M0 0L50 0" stroke="blue" fill="none"/>\n  <path d="M50 0L100 0" stroke="red" fill="none"/>\n';
+    // The filled triangle is painted after the lines (a fill painted between two members splits their group: the
+    // next test).
+    const body = '  <path d="M0 0L50 0" stroke="red" fill="none"/>\n' +
+      '  <path d="M0 0L50 0" stroke="blue" fill="none"/>\n  <path d="M50 0L100 0" stroke="red" fill="none"/>\n' + filled;
     const r = refitSvg(doc(body), { plan: true, tolerance: 0.1 });
     expect(r.text).toContain(filled);
     // The red lines join (they meet at (50,0)) into one path; the blue duplicate of a red line stays: other colour.
@@ -157,6 +159,25 @@ describe('refitSvg with the plan', () => {
     expect(r.text).toMatch(/<g opacity="0.2"><(path|line)[^>]*stroke-dasharray="2 1"/);
     expect(r.text.match(/marker-end=/g)).toHaveLength(1);
     expect(r.report.totals.withinTolerance).toBe(true);
+  });
+
+  it('keeps painting order (never across a fill drawn between) and never writes into a symbol a <use> draws', () => {
+    // Two touching red lines with a white filled rect painted between them: joined, one would move under the rect.
+    const fill = '  <line x1="0" y1="20" x2="25" y2="20" stroke="red"/>\n  <rect x="20" y="10" width="20" height="20" fill="white"/>\n' +
+      '  <line x1="25" y1="20" x2="50" y2="20" stroke="red"/>\n';
+    const r = refitSvg(doc(fill), { plan: true, tolerance: 0.1 });
+    expect(r.report.plan!.contoursJoined).toBe(0);
+    const at = (s: string): number => r.text.indexOf(s);
+    expect(at('<rect')).toBeGreaterThan(0);
+    expect(r.text.slice(at('<rect')).match(/<(path|line)\b/g)).toHaveLength(1);
+    // A blue circle inside a symbol drawn by <use>, and blue lines at the root: the lines stay at the root.
+    const sym = '  <symbol id="s" viewBox="0 0 10 10"><circle cx="5" cy="5" r="4" fill="none" stroke="blue"/></symbol>\n' +
+      '  <use href="#s" x="60" y="60" width="10" height="10"/>\n' +
+      '  <line x1="50" y1="10" x2="80" y2="10" stroke="blue"/>\n  <line x1="80" y1="10" x2="80" y2="30" stroke="blue"/>\n';
+    const q = refitSvg(doc(sym), { plan: true, tolerance: 0.1 });
+    const inside = q.text.slice(q.text.indexOf('<symbol'), q.text.indexOf('</symbol>'));
+    expect(inside).not.toMatch(/M50 10/);
+    expect(compareSvg(doc(sym), q.text, { tolerance: 0.1 }).whole!.max).toBeLessThanOrEqual(0.1);
   });
 
   it('a second planning run changes nothing, and planning a refitted file keeps within the tolerance of the first original', () => {
