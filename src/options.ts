@@ -103,6 +103,19 @@ export const OPTION_DOCS: Readonly<Record<keyof Options, OptionDoc>> = Object.fr
   joinDistance: { meaning: 'with the plan: ends closer than this are joined (default: the tolerance)', unit: 'mm' },
 });
 
+/**
+ * Smallest tolerance accepted, mm: 0.1 µm, finer than any cutter or plotter moves, and the sampling of
+ * the measurement stays within its memory limits above it (a 100 mm line at 0.1 µm is a few million samples).
+ */
+export const MIN_TOLERANCE_MM = 1e-4;
+
+/** Refuse a tolerance below {@link MIN_TOLERANCE_MM} with a message naming it. */
+export function checkTolerance(tolMm: number): void {
+  if (tolMm < MIN_TOLERANCE_MM) {
+    throw new OptionError(`tolerance ${+tolMm.toPrecision(6)} mm is below ${MIN_TOLERANCE_MM} mm (0.1 µm), finer than any machine moves; use ${MIN_TOLERANCE_MM}mm or more`);
+  }
+}
+
 /** Error for an option value a user gave; its message names the option and the bad value. */
 export class OptionError extends Error {
   override name = 'OptionError';
@@ -161,6 +174,7 @@ export function resolveOptions(input: ArcsplineOptions = {}): Options {
   if (!(o.tolerance > 0) || !Number.isFinite(o.tolerance)) {
     throw new OptionError(`tolerance must be a positive number of mm, got ${String(partial.tolerance)}`);
   }
+  checkTolerance(o.tolerance);
   if (!(o.cornerAngle >= 0 && o.cornerAngle <= 180)) {
     throw new OptionError(`cornerAngle must be between 0 and 180 degrees, got ${String(partial.cornerAngle)}`);
   }

@@ -34,6 +34,12 @@ describe('resolveOptions', () => {
     expect(resolveOptions({ digits: null, joinDistance: null })).toMatchObject({ digits: null, joinDistance: null });
   });
 
+  it('refuses a tolerance below 0.1 µm by name (it once crashed the measurement or wrote an empty program)', () => {
+    expect(() => resolveOptions({ tolerance: 1e-6 })).toThrow(/tolerance 0.000001 mm is below 0.0001 mm/);
+    expect(() => resolveOptions({ tolerance: '0.00001mm' })).toThrow(OptionError);
+    expect(resolveOptions({ tolerance: 1e-4 }).tolerance).toBe(1e-4);
+  });
+
   it('fills every left-out field from DEFAULT_OPTIONS (a partial object is the input type)', () => {
     const input: ArcsplineOptions = {};
     expect(resolveOptions(input)).toEqual(DEFAULT_OPTIONS);
