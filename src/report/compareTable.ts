@@ -54,6 +54,13 @@ export function formatComparison(c: Comparison, opts: TableOptions, names: { a: 
   );
   const t = c.totals;
   const verdict = t.withinTolerance ? paint('within tolerance', 'good', opts.color) : paint('NOT within tolerance', 'bad', opts.color);
-  lines.push(`${countOf(t.pairs, 'pair')}, ${t.overTolerance} over ${formatMmValue(tol)} mm, largest ${formatMmValue(t.maxPairDeviation)} mm: ${verdict}`);
+  // Pairs by document order decide nothing when elements are left over (merged or split, as a path plan does):
+  // say so, so that "N over" beside "within tolerance" is not read as a contradiction.
+  const leftOver = c.unpairedA.length + c.unpairedB.length;
+  const byOrderOver = c.pairs.filter((p) => p.by === 'order' && !p.withinTolerance).length;
+  const note = leftOver > 0 && byOrderOver > 0
+    ? ` (${byOrderOver} paired by order only, not counted: ${countOf(leftOver, 'element')} left unpaired, so the whole drawing decides)`
+    : '';
+  lines.push(`${countOf(t.pairs, 'pair')}, ${t.overTolerance} over ${formatMmValue(tol)} mm, largest ${formatMmValue(t.maxPairDeviation)} mm${note}: ${verdict}`);
   return `${lines.join('\n')}\n`;
 }

@@ -19,4 +19,12 @@ describe('formatComparison', () => {
     expect(s).toMatch(/\n1 pair, 1 over 0\.1 mm/);
     expect(formatComparison(c, { color: true })).toMatch(/\x1b\[31m/);
   });
+
+  it('says when pairs by order are not counted (elements merged: the whole drawing decides)', () => {
+    // Two halves of one line against the whole line: the order pair is 50 mm apart, the drawings coincide.
+    const c = compareSvg(doc('<path d="M0 10H50"/><path d="M50 10H100"/>'), doc('<path d="M0 10H100"/>'), { tolerance: 0.1 });
+    const s = formatComparison(c, { color: false });
+    expect(c.totals.withinTolerance).toBe(true);
+    expect(s).toMatch(/1 pair, 1 over 0\.1 mm, largest 50 mm \(1 paired by order only, not counted: 1 element left unpaired, so the whole drawing decides\): within tolerance/);
+  });
 });
