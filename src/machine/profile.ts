@@ -96,6 +96,18 @@ function num(o: Record<string, unknown>, key: string, lo: number, hi: number, fa
   return v;
 }
 
+/**
+ * Lines the program runs between cuts must not move the head in the plane or change how coordinates are read:
+ * the writer's next move would then start elsewhere than it thinks (a tool-on line `G0 X0 Y0` made a cut from
+ * the origin). Refused: X, Y, I, J and R words, and G20 (inches), G91 (relative), G92 (offset) (RS274NGC v3
+ * §3.5, from memory). Z moves, dwells (G4 P…), spindle and laser words are fine; the end block may move home.
+ */
+function refuseMotion(key: string, line: string): void {
+  const code = line.replace(/\([^)]*\)/g, ' ').replace(/;.*$/, '');
+  const word = /(?:^|[^A-Z])([XYIJR])\s*[-+.\d{]/i.exec(code) ?? /(?:^|[^A-Z\d.])(G\s*0*(?:20|91|92))(?![\d.])/i.exec(code);
+  if (word) throw new ProfileError(`profile field "${key}" holds ${JSON.stringify(line)}: ${word[1].toUpperCase()} would move the head or change the coordinates between cuts (only the end block may)`);
+}
+
 function lines(o: Record<string, unknown>, key: string, fallback: string[] | undefined): string[] {
   const v = o[key] ?? fallback;
   if (!Array.isArray(v)) throw new ProfileError(`profile field "${key}" must be a list of G-code lines, got ${JSON.stringify(o[key])}`);
@@ -103,6 +115,7 @@ function lines(o: Record<string, unknown>, key: string, fallback: string[] | und
     if (typeof s !== 'string' || /[\r\n]/.test(s)) throw new ProfileError(`profile field "${key}" holds ${JSON.stringify(s)}: each entry must be one line of text`);
     const bad = /\{(?!power\}|feed\})[^}]*\}/.exec(s);
     if (bad) throw new ProfileError(`profile field "${key}" holds an unknown placeholder ${bad[0]} in ${JSON.stringify(s)} (known: {power}, {feed})`);
+    if (key !== 'end') refuseMotion(key, s);
   }
   return v.slice() as string[];
 }

@@ -50,6 +50,17 @@ describe('machine profiles', () => {
     expect(() => parseProfile(value)).toThrow(message);
   });
 
+  // Words from RS274NGC v3 (NIST): X, Y, I, J, R place moves in the plane; G20 inches, G91 relative, G92 offsets.
+  it.each(['G0 X0 Y0', 'G2 I1 J0', 'G91', 'G92 X0', 'G20'])('refuses a tool line that moves the head or changes the frame: %s', (line) => {
+    expect(() => parseProfile({ name: 'x', toolOn: [line] })).toThrow(/would move the head or change the coordinates between cuts/);
+    expect(() => parseProfile({ name: 'x', toolOff: [line] })).toThrow(ProfileError);
+  });
+
+  it('keeps Z moves, dwells, spindle and laser words in tool lines, comments aside, and any move in the end block', () => {
+    expect(() => parseProfile({ name: 'x', toolOn: ['G1 Z0 F600', 'M4 S{power}', 'G4 P0.2', 'M3 S1000 (X marks the spot)'], toolOff: ['G0 Z5'] })).not.toThrow();
+    expect(parseProfile({ name: 'x', end: ['G0 X0 Y0', 'M2'] }).end).toEqual(['G0 X0 Y0', 'M2']);
+  });
+
   it('an empty profile is valid and takes the laser numbers with no lines', () => {
     expect(validate({})).toBe(true);
     const p = parseProfile({});
