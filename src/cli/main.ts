@@ -14,7 +14,7 @@ import { resolveOptions, type Options } from '../options.js';
 import { measureMain } from './measureMain.js';
 import { SvgInputError } from '../svg/errors.js';
 import { checkSpacedUnits } from './spacedUnits.js';
-import { buildProgram, chosenCommand, formatOfOutputName, parsedArgs, parsedMeasure, type CliFlags, type ParsedArgs } from './args.js';
+import { OPTION_FLAGS, buildProgram, chosenCommand, formatOfOutputName, parsedArgs, parsedMeasure, type CliFlags, type ParsedArgs } from './args.js';
 import { EXIT_INTERNAL, EXIT_INTERRUPTED, EXIT_OK, EXIT_TOLERANCE, EXIT_USAGE, UsageError } from './exitCodes.js';
 import { runBatch } from './batch.js';
 import { isGlobPattern } from './inputs.js';
@@ -86,6 +86,7 @@ export async function main(argv: string[], io: Io = processIo()): Promise<number
   const paint = choosePaint(io.stderrIsTTY ?? ttyOf(io.stderr), io.env ?? process.env);
   try {
     const options = checkOptions(formatFromOutput(args));
+    for (const note of ignoredOptions(args, options)) err(`arcspline: warning: ${note}`);
     const batch = await isBatch(args);
     checkMachineCombination(args.flags, options);
     if (batch) return await batchCommand(args, options, io);
@@ -155,6 +156,22 @@ function formatFromOutput(args: ParsedArgs): Partial<Options> {
     throw new UsageError(`--format ${given} and the output name ${args.flags.output} (${byName}) disagree; give one of them`);
   }
   return given === undefined && byName !== null && byName !== 'svg' ? { ...args.options, format: byName } : args.options;
+}
+
+/** Options given that this run does not use (each would otherwise be ignored without a word). */
+export function ignoredOptions(args: ParsedArgs, options: Partial<Options>): string[] {
+  const notes: string[] = [];
+  const given = (k: keyof Options): boolean => args.options[k] !== undefined;
+  if (options.plan !== true) {
+    const sub = (['planJoin', 'planDoubles', 'planOrder', 'holesFirst', 'joinDistance'] as const).filter(given).map((k) => OPTION_FLAGS[k].split(' ')[0]);
+    if (sub.length > 0) notes.push(`${sub.join(', ')} ${sub.length > 1 ? 'act' : 'acts'} only with --plan, which is not given: ignored`);
+  }
+  if (resolveOptions(options).format === 'svg') {
+    const machine = (['machineProfile', 'machineOrigin'] as const).filter(given).map((k) => OPTION_FLAGS[k].split(' ')[0]);
+    if (machine.length > 0) notes.push(`${machine.join(', ')} ${machine.length > 1 ? 'act' : 'acts'} only on G-code or DXF output (-o NAME.gcode, .nc, .ngc, .dxf or --format): ignored`);
+  }
+  if (!args.flags.backup && !args.flags.inPlace) notes.push('--no-backup acts only with --in-place: ignored');
+  return notes;
 }
 
 /** Machine output (G-code, DXF) goes to new files or standard output: never in place, no SVG preview. */

@@ -103,3 +103,16 @@ describe('--table in a batch, and counts that agree', () => {
     expect(replaced).toBeLessThan(total);
   });
 });
+
+describe('options this run does not use are named, not ignored silently', () => {
+  it('plan options without --plan, machine options with SVG output, --no-backup without --in-place: one warning each', async () => {
+    writeFileSync(join(dir, 'a.svg'), SMALL);
+    const r = await run([join(dir, 'a.svg'), '-o', join(dir, 'b.svg'), '--holes-first', '--join-distance', '1mm', '--profile', 'pen-z', '--no-backup', '-q']);
+    expect(r.code).toBe(EXIT_OK);
+    expect(r.stderr).toContain('arcspline: warning: --holes-first, --join-distance act only with --plan, which is not given: ignored');
+    expect(r.stderr).toContain('arcspline: warning: --profile acts only on G-code or DXF output');
+    expect(r.stderr).toContain('arcspline: warning: --no-backup acts only with --in-place: ignored');
+    const used = await run([join(dir, 'a.svg'), '-o', join(dir, 'c.gcode'), '--plan', '--holes-first', '--profile', 'pen-z', '-q']);
+    expect(used.stderr).not.toContain('warning: --');
+  });
+});
