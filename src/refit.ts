@@ -140,15 +140,16 @@ export function assemble(
     const bad = restyledElements(out, doc, [...own.keys()], opts);
     times.measure += now() - t;
     if (bad.size > 0) {
+      const putBack = new Set<Edit>();
       for (const i of bad) {
         const { edits: mine, report: r } = own.get(i)!;
-        for (const e of mine) edits.splice(edits.indexOf(e), 1);
+        for (const e of mine) putBack.add(e);
         setUnchanged(r, 'restyled', 'written as a path, the document would style or place it otherwise (a style sheet rule for its element name, or a CSS transform over a baked one); kept as written');
         if (r.contours) r.contours = r.contours.map((c) => ({ ...c, status: r.status, reason: r.reason }));
       }
       warnings.push(`${bad.size} rewritten element${bad.size > 1 ? 's' : ''} put back as written: as a path the document would style or place ${bad.size > 1 ? 'them' : 'it'} otherwise (a style sheet rule for the element name, or a CSS transform over a baked one)`);
       t = now();
-      out = applyEdits(text, edits);
+      out = applyEdits(text, edits.filter((e) => !putBack.has(e)));
       times.write += now() - t;
     }
   }
