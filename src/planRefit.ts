@@ -93,9 +93,9 @@ export function planDocument(doc: SvgDocument, opts: Options, times: StageTimes)
   // Painting order: a group never reaches across geometry drawn between its members (a white fill over a line
   // would otherwise end up under or over it), so every drawn element the plan leaves alone starts a new run.
   let run = 0;
+  const skip = (): void => void run++;
   for (const el of doc.elements) {
     if (!el.rewritable) continue; // not drawn where it stands: it paints nothing between members
-    const skip = (): void => void run++;
     if (el.copyScale > 1 || el.drawnByUse || (el.id !== null && referenced(doc.text, el.id))) { skip(); continue; }
     // Refitted before (its mark): the plan would spend the tolerance again; such elements go to the per-element
     // refit, which keeps them within what is left (src/write/refitMark.ts), unless refitMarked.
