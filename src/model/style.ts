@@ -7,6 +7,7 @@
 import type { GeometryElement } from '../svg/documentTypes.js';
 import type { ElementStyle } from '../svg/style/elementStyle.js';
 import type { DrawingStyle } from './drawing.js';
+import { signedArea } from '../geom/area.js';
 
 /**
  * The drawing style of an element where it stands (or of one of its copies, given that copy's computed style).
@@ -29,12 +30,7 @@ const NO_AREA_MM2 = 1e-9;
  */
 export function paintsFill(fill: string, contours: readonly { xy: Float64Array }[]): boolean {
   if (fill === 'none') return false;
-  for (const c of contours) {
-    const xy = c.xy, n = xy.length >> 1;
-    // Shoelace formula (surveyor's area formula, handbook), over the subpath closed back to its start.
-    let twice = 0;
-    for (let i = 0, j = n - 1; i < n; j = i++) twice += xy[2 * j] * xy[2 * i + 1] - xy[2 * i] * xy[2 * j + 1];
-    if (Math.abs(twice) / 2 > NO_AREA_MM2) return true;
-  }
+  // The subpath closed back to its start, as the fill closes it.
+  for (const c of contours) if (Math.abs(signedArea(c.xy)) > NO_AREA_MM2) return true;
   return false;
 }

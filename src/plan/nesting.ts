@@ -13,19 +13,12 @@
  * other get whichever parent their first vertex says.
  */
 import Flatbush from 'flatbush';
+import { signedArea } from '../geom/area.js';
 
 /** A contour, mm (stride 2). */
 export interface NestInput {
   xy: Float64Array;
   closed: boolean;
-}
-
-/** Signed area of a closed polyline (shoelace formula), mm²; positive when counter-clockwise in y-up axes. */
-export function signedArea(xy: Float64Array): number {
-  const n = xy.length >> 1;
-  let a = 0;
-  for (let i = 0, j = n - 1; i < n; j = i++) a += xy[2 * j] * xy[2 * i + 1] - xy[2 * i] * xy[2 * j + 1];
-  return a / 2;
 }
 
 /** Winding number of a closed polyline about (px, py) (signed upward/downward crossings of the ray to +x). */

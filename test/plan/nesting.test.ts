@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { nestingParents, signedArea, windingNumber } from '../../src/plan/nesting.js';
+import { nestingParents, windingNumber } from '../../src/plan/nesting.js';
+import { signedArea } from '../../src/geom/area.js';
 
 const square = (x0: number, y0: number, x1: number, y1: number, cw = false): Float64Array =>
   cw ? Float64Array.of(x0, y0, x0, y1, x1, y1, x1, y0) : Float64Array.of(x0, y0, x1, y0, x1, y1, x0, y1);
