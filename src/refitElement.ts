@@ -7,10 +7,10 @@ import type { Options } from './options.js';
 import type { GeometryElement, SvgDocument } from './svg/document.js';
 import { parsePathData } from './svg/pathData.js';
 import { invert, maxScale } from './svg/matrix.js';
-import { OP_C, OP_L, OP_M, OP_Q, OP_Z, type ParsedPath, type PathData } from './svg/pathTypes.js';
+import { OP_L, OP_M, OP_Z, type ParsedPath, type PathData } from './svg/pathTypes.js';
 import type { Matrix } from './svg/matrixTypes.js';
 import { drawingElementFromSvg, readGeometry } from './model/fromSvg.js';
-import { fitElement, setContourOutcomes } from './model/fit.js';
+import { fitElement, hasBeziers, setContourOutcomes } from './model/fit.js';
 import type { FittedElement } from './model/drawing.js';
 import { arcGeometry } from './fit/segment.js';
 import { svgElementEdits, svgPathData } from './write/svgElement.js';
@@ -67,12 +67,6 @@ export function untouchedReport(el: GeometryElement): ElementReport {
   const r = baseReport(el, readGeometry(el, []));
   setUnchanged(r, 'not-drawn', el.reason ?? 'not rewritable');
   return r;
-}
-
-/** True when path data has Bézier segments. */
-function hasBeziers(p: PathData): boolean {
-  for (let i = 0; i < p.ops.length; i++) if (p.ops[i] === OP_C || p.ops[i] === OP_Q) return true;
-  return false;
 }
 
 /** Segments drawn (every command but moveto; a Z draws the closing line). */

@@ -16,7 +16,7 @@ export function straightMoves(c: DrawingContour, tolMm: number): number {
 }
 
 /** True when path data has Bézier segments. */
-function hasBeziers(p: PathData): boolean {
+export function hasBeziers(p: PathData): boolean {
   for (let i = 0; i < p.ops.length; i++) if (p.ops[i] === OP_C || p.ops[i] === OP_Q) return true;
   return false;
 }

@@ -123,10 +123,6 @@ export function keptReasonText(reason: string | null): string {
   return r === '' ? 'unchanged' : r;
 }
 
-function overTolerance(e: ElementReport): boolean {
-  return isOverTolerance(e);
-}
-
 function elementRow(e: ElementReport, tol: number): Cell[] {
   const d = e.deviation;
   const fitted = e.segmentsAfter.arcs + e.segmentsAfter.lines > 0;
@@ -134,7 +130,7 @@ function elementRow(e: ElementReport, tol: number): Cell[] {
   const mm = (v: number | undefined): Cell => ({ text: v === undefined ? '-' : formatMmValue(v), right: true, tone: devTone });
   let before = 0;
   for (const k in e.commandsBefore) before += e.commandsBefore[k];
-  const status: Cell = !e.kept ? { text: 'refit', tone: 'good' } : { text: 'kept', tone: overTolerance(e) ? 'bad' : 'note' };
+  const status: Cell = !e.kept ? { text: 'refit', tone: 'good' } : { text: 'kept', tone: isOverTolerance(e) ? 'bad' : 'note' };
   return [
     { text: elementLabel(e) },
     { text: String(before), right: true },
@@ -165,7 +161,7 @@ function keptNotes(elements: ElementReport[], opts: TableOptions): string[] {
     if (!e.kept) continue;
     // One measured figure per element: such reasons are listed each on their own.
     const key = keptReasonText(e.keptReason);
-    const g = byReason.get(key) ?? { labels: [], bad: overTolerance(e) };
+    const g = byReason.get(key) ?? { labels: [], bad: isOverTolerance(e) };
     g.labels.push(elementLabel(e));
     byReason.set(key, g);
   }
